@@ -1,0 +1,115 @@
+# termtide — plain Makefile with pkg-config.
+#
+#   make                 library (build/libtermtide.a) and program (build/termtide)
+#   make check           the test suite, then again under ASan + UBSan
+#   make test            the test suite once (normal build)
+#   make san-test        the test suite under AddressSanitizer + UBSan only
+#   make bench           the benchmark (bench/)
+#   make install PREFIX=/usr/local
+#   make leakcheck lint format clean
+
+PREFIX  ?= /usr/local
+CC      ?= cc
+PYTHON  ?= /usr/bin/python3
+VERSION := 0.1.0
+
+PKGS    := libxml-2.0 libutf8proc zlib
+PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS))
+PKG_LIBS   := $(shell pkg-config --libs $(PKGS)) -lstemmer -lpthread -lm
+TEST_LIBS  := $(shell pkg-config --libs cmocka)
+
+OPT     ?= -O2
+CFLAGS  ?= $(OPT) -g
+WARN    := -std=c11 -Wall -Wextra -Werror -Wshadow -Wstrict-prototypes -Wmissing-prototypes -Wvla
+CPPFLAGS_ALL := -D_POSIX_C_SOURCE=200809L -D_DEFAULT_SOURCE -DTT_VERSION=\"$(VERSION)\" -Iinclude -Isrc $(PKG_CFLAGS)
+
+# SAN=1 builds into build-san with AddressSanitizer + UndefinedBehaviorSanitizer.
+ifeq ($(SAN),1)
+B       := build-san
+CFLAGS  := -O1 -g -fno-omit-frame-pointer -fsanitize=address,undefined -fno-sanitize-recover=all
+LDSAN   := -fsanitize=address,undefined
+else
+B       := build
+LDSAN   :=
+endif
+
+LIB_SRC := $(sort $(wildcard src/*.c))
+CLI_SRC := $(sort $(wildcard src/cli/*.c))
+TEST_SRC:= $(sort $(wildcard tests/test_*.c))
+GEN_SRC := $(B)/gen/stopwords_data.c
+LIB_OBJ := $(LIB_SRC:src/%.c=$(B)/obj/%.o) $(B)/obj/gen/stopwords_data.o
+CLI_OBJ := $(CLI_SRC:src/cli/%.c=$(B)/obj/cli/%.o)
+TESTS   := $(TEST_SRC:tests/%.c=$(B)/tests/%)
+STOPWORDS := $(sort $(wildcard stopwords/*.txt))
+
+.PHONY: all test check san-test bench install uninstall clean leakcheck lint format fuzz
+all: $(B)/libtermtide.a $(B)/termtide
+
+$(B)/obj/%.o: src/%.c $(wildcard include/termtide/*.h src/*.h) | $(B)/obj/cli $(B)/obj/gen
+	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(CFLAGS) -c $< -o $@
+
+$(B)/obj/gen/%.o: $(B)/gen/%.c | $(B)/obj/gen
+	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(CFLAGS) -c $< -o $@
+
+$(B)/obj/cli $(B)/obj/gen $(B)/gen $(B)/tests:
+	mkdir -p $@
+
+# The stop-word lists are compiled in, so the program needs no data files.
+$(B)/embed: tools/embed.c | $(B)/gen
+	$(CC) $(WARN) -O1 $< -o $@
+$(GEN_SRC): $(B)/embed $(STOPWORDS) | $(B)/gen
+	$(B)/embed $(STOPWORDS) > $@.tmp && mv $@.tmp $@
+
+$(B)/libtermtide.a: $(LIB_OBJ)
+	rm -f $@ && ar rcs $@ $^
+
+$(B)/termtide: $(CLI_OBJ) $(B)/libtermtide.a
+	$(CC) $(CFLAGS) $(LDSAN) $(LDFLAGS) $(CLI_OBJ) $(B)/libtermtide.a $(PKG_LIBS) -o $@
+
+$(B)/tests/%: tests/%.c tests/tt_test.h $(B)/libtermtide.a | $(B)/tests
+	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -Wno-missing-prototypes $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) $(TEST_LIBS) -o $@
+
+# Runs every test binary from the repository root; the CLI tests find the
+# program through TT_BIN. Prints "N passed, N failed" at the end.
+test: all $(TESTS)
+	@pass=0; fail=0; failed=""; \
+	for t in $(TESTS); do \
+	  echo "== $$t"; \
+	  if TT_BIN=$(B)/termtide PYTHON=$(PYTHON) ./$$t; then pass=$$((pass+1)); \
+	  else fail=$$((fail+1)); failed="$$failed $$t"; fi; \
+	done; \
+	echo "test binaries: $$pass passed, $$fail failed"; \
+	if [ $$fail -ne 0 ]; then echo "failed:$$failed"; exit 1; fi
+
+san-test:
+	$(MAKE) SAN=1 test
+
+check:
+	$(MAKE) test
+	ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 $(MAKE) SAN=1 test
+
+bench: all
+	$(MAKE) -C bench TERMTIDE=$(abspath $(B)/termtide)
+
+leakcheck: all $(TESTS)
+	@for t in $(TESTS); do TT_BIN=$(B)/termtide valgrind -q --leak-check=full --error-exitcode=1 ./$$t || exit 1; done
+
+lint:
+	clang-tidy $(LIB_SRC) $(CLI_SRC) -- $(CPPFLAGS_ALL) -std=c11
+
+format:
+	clang-format -i $(LIB_SRC) $(CLI_SRC) include/termtide/*.h src/*.h
+
+install: all
+	install -d $(DESTDIR)$(PREFIX)/bin $(DESTDIR)$(PREFIX)/lib $(DESTDIR)$(PREFIX)/include/termtide $(DESTDIR)$(PREFIX)/share/man/man1 $(DESTDIR)$(PREFIX)/share/termtide/stopwords
+	install -m 755 $(B)/termtide $(DESTDIR)$(PREFIX)/bin/termtide
+	install -m 644 $(B)/libtermtide.a $(DESTDIR)$(PREFIX)/lib/libtermtide.a
+	install -m 644 include/termtide/*.h $(DESTDIR)$(PREFIX)/include/termtide/
+	install -m 644 man/termtide.1 $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1
+	install -m 644 $(STOPWORDS) $(DESTDIR)$(PREFIX)/share/termtide/stopwords/
+
+uninstall:
+	rm -rf $(DESTDIR)$(PREFIX)/bin/termtide $(DESTDIR)$(PREFIX)/lib/libtermtide.a $(DESTDIR)$(PREFIX)/include/termtide $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1 $(DESTDIR)$(PREFIX)/share/termtide
+
+clean:
+	rm -rf build build-san

@@ -1,0 +1,68 @@
+/* termtide — running the pipeline over a batch of inputs, on N worker
+ * threads, delivering each document's result to the caller in input order.
+ *
+ * Memory stays bounded: workers run at most `window` inputs ahead of the
+ * caller, and each result is freed once delivered, so a batch of any size
+ * holds a few documents' tables at a time. */
+#ifndef TT_BATCH_H
+#define TT_BATCH_H
+
+#include <stddef.h>
+#include <stdint.h>
+#include "termtide/count.h"
+#include "termtide/document.h"
+#include "termtide/source.h"
+#include "termtide/status.h"
+
+typedef struct tt_doc_result {
+    size_t input;            /* index in the source list */
+    const char *name;        /* document name (see tt_document) */
+    const char *path;
+    tt_doc_kind kind, outer_kind;
+    const char *encoding;    /* tt_encoding_name of the file */
+    const char *type;        /* wrapper <TYPE> or "" */
+    const char *entity, *period, *form; /* wrapper header or "" */
+    const char *notes;       /* "" when none */
+    uint64_t bytes;          /* decoded bytes of this document */
+    tt_doc_stats stats;
+    const tt_termtable *table;
+} tt_doc_result;
+
+typedef struct tt_batch_options {
+    tt_read_options read;
+    tt_count_options count;
+    int threads;             /* 1 = run in the calling thread */
+    size_t window;           /* inputs in flight; 0 = 4 × threads */
+    /* Called in input order, in the calling thread. Non-OK stops the batch
+     * and is returned by tt_batch_run (e.g. a write error). */
+    tt_status (*on_document)(void *ctx, const tt_doc_result *r);
+    /* A problem, in input order: skipped = 1 when the input or document was
+     * not counted, 0 for a note on odd but readable input. */
+    void (*on_problem)(void *ctx, const char *name, const tt_error *err, int skipped);
+    /* After each input; may be NULL. */
+    void (*on_progress)(void *ctx, size_t inputs_done, size_t inputs_total,
+                        uint64_t bytes_done, uint64_t bytes_total);
+    void *ctx;
+} tt_batch_options;
+
+void tt_batch_options_init(tt_batch_options *o);
+
+typedef struct tt_batch_summary {
+    size_t inputs;           /* paths in the list */
+    size_t documents;        /* documents counted */
+    size_t skipped;          /* inputs or documents not counted (errors) */
+    size_t parts_skipped;    /* wrapper parts left out by type or uuencoded */
+    size_t notes;            /* documents read with a note */
+    uint64_t words;          /* words read */
+    uint64_t terms;          /* terms counted */
+    uint64_t bytes;          /* input bytes (file sizes) */
+} tt_batch_summary;
+
+/* Runs the batch. Returns TT_OK when the batch ran to the end (even if some
+ * inputs were skipped: see summary->skipped), or the first fatal status
+ * (out of memory in the coordinator, or a non-OK from on_document) with err
+ * filled. */
+tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt,
+                       tt_batch_summary *summary, tt_error *err);
+
+#endif

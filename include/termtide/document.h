@@ -1,0 +1,111 @@
+/* termtide — from one input path to the documents it holds.
+ *
+ * Reads the file (source), decodes it (decode), detects its kind from the
+ * content, splits a submission wrapper into its inner documents, extracts
+ * blocks of text (extract) and hands each document to a callback. */
+#ifndef TT_DOCUMENT_H
+#define TT_DOCUMENT_H
+
+#include <stddef.h>
+#include "termtide/buf.h"
+#include "termtide/decode.h"
+#include "termtide/extract.h"
+#include "termtide/status.h"
+
+typedef enum tt_doc_kind {
+    TT_KIND_TEXT = 0,
+    TT_KIND_HTML,
+    TT_KIND_WRAPPER /* only ever the outer file; inner parts are TEXT/HTML */
+} tt_doc_kind;
+
+const char *tt_doc_kind_name(tt_doc_kind kind); /* "text", "html", "wrapper" */
+
+/* Detects the kind from content: a wrapper starts (after white space and an
+ * optional <SEC-DOCUMENT>/<SEC-HEADER>/<IMS-HEADER> preamble) with header
+ * lines or has a <DOCUMENT> line holding a <TYPE> line; HTML has a doctype,
+ * <html, <body, <div, <p, <table or an XML prolog followed by <html within
+ * its first 4 KiB (case-insensitive); else text. */
+tt_doc_kind tt_detect_kind(const char *text, size_t len);
+
+/* One inner document of a submission wrapper. */
+typedef struct tt_wrapper_part {
+    size_t seq;            /* 1-based <SEQUENCE>, or position when absent */
+    char type[64];         /* <TYPE>, e.g. "10-Q", "EX-99.1", "GRAPHIC" */
+    char filename[256];    /* <FILENAME> or "" */
+    char description[256]; /* <DESCRIPTION> or "" */
+    size_t text_off, text_len; /* the <TEXT> body within the wrapper text */
+    int uuencoded;         /* the body is a uuencoded binary ("begin 644 ...") */
+} tt_wrapper_part;
+
+typedef struct tt_wrapper {
+    tt_wrapper_part *parts;
+    size_t n, cap;
+    /* From the header, "" when absent. */
+    char entity[256];      /* COMPANY CONFORMED NAME */
+    char period[32];       /* CONFORMED PERIOD OF REPORT (YYYYMMDD) */
+    char form[64];         /* CONFORMED SUBMISSION TYPE */
+} tt_wrapper;
+
+void tt_wrapper_init(tt_wrapper *w);
+void tt_wrapper_release(tt_wrapper *w);
+
+/* Splits a decoded wrapper into parts (TT_LIMIT_WRAPPER_PARTS at most).
+ * An unterminated <DOCUMENT> or <TEXT> runs to the end of the input and is
+ * kept. TT_EPARSE when no <DOCUMENT> is found. */
+tt_status tt_wrapper_split(const char *text, size_t len, tt_wrapper *out,
+                           const char *name, tt_error *err);
+
+/* Whether an inner document of this type (and file name) is kept.
+ * types: NULL or "" for the default (every type except exhibits "EX-*",
+ * "GRAPHIC", "ZIP", "EXCEL", "XML", "JSON", "PDF" and files named *.xml,
+ * *.xsd, *.jpg, *.gif, *.png, *.pdf, *.zip, *.xlsx, *.json, *.js, *.css);
+ * "all" for every type; else a comma-separated list of types matched without
+ * regard to case, where a trailing '*' matches a prefix ("EX-99*").
+ * Uuencoded parts are never kept. */
+int tt_wrapper_keep(const tt_wrapper_part *part, const char *types);
+
+typedef struct tt_read_options {
+    int drop_tables;       /* passed to the HTML extractor */
+    const char *doc_types; /* see tt_wrapper_keep */
+} tt_read_options;
+
+/* One document handed to the callback. Everything in it is owned by the
+ * reader and valid only during the callback. */
+typedef struct tt_document {
+    const char *name;      /* the path, or "path#SEQ:TYPE" for an inner part */
+    const char *path;      /* the outer file */
+    tt_doc_kind kind;      /* TT_KIND_TEXT or TT_KIND_HTML */
+    tt_doc_kind outer_kind;/* TT_KIND_WRAPPER for inner parts */
+    tt_decode_info decode; /* of the outer file */
+    int was_gzip;
+    size_t seq;            /* wrapper sequence, 0 otherwise */
+    const char *type;      /* wrapper <TYPE>, "" otherwise */
+    const char *entity;    /* wrapper header values, "" otherwise */
+    const char *period;
+    const char *form;
+    const char *raw;       /* the decoded text of this document */
+    size_t raw_len;
+    tt_blocks *blocks;     /* extracted text */
+    const char *notes;     /* "; "-separated notes about odd but readable
+                              input ("decoded as windows-1252", "3 invalid
+                              UTF-8 sequences replaced", "empty document",
+                              "HTML repaired: 2 problems"), "" when none */
+} tt_document;
+
+/* Return non-OK from the callback to stop reading this file; that status is
+ * returned. */
+typedef tt_status (*tt_document_fn)(void *ctx, const tt_document *doc);
+
+/* Reads one input path and calls fn once per document it holds (once for
+ * text or HTML; once per kept part for a wrapper; never for a skipped part).
+ * On failure (unreadable, binary, over a limit, bad wrapper) returns the
+ * status with err naming the file and the cause; no callback for the failed
+ * document. For a wrapper, a part that fails to extract is reported through
+ * the return value only after the other parts were handed over.
+ * *skipped_parts (may be NULL) receives the number of wrapper parts left out
+ * by the type filter or as uuencoded. */
+tt_status tt_read_documents(const char *path, const tt_read_options *opt,
+                            tt_document_fn fn, void *ctx, size_t *skipped_parts,
+                            tt_error *err);
+
+#endif

@@ -1,0 +1,50 @@
+/* termtide — the segment stage: Unicode UAX #29 default word boundaries,
+ * and the tokens (words and numbers) termtide counts.
+ *
+ * The word-break property tables are generated from Debian's unicode-data
+ * files by tools/gen_wordbreak.py (Unicode version in TT_UNICODE_VERSION). */
+#ifndef TT_SEGMENT_H
+#define TT_SEGMENT_H
+
+#include <stddef.h>
+
+/* The Unicode version of the word-break tables, e.g. "15.0.0". */
+const char *tt_unicode_version(void);
+
+/* Returns the next UAX #29 default word boundary after pos (pos < len),
+ * following every rule WB1–WB999 of Unicode's UAX #29 (WB3c uses
+ * Extended_Pictographic). text must be valid UTF-8. Returns len at the end. */
+size_t tt_wordbreak_next(const char *text, size_t len, size_t pos);
+
+typedef enum tt_token_kind {
+    TT_TOKEN_WORD = 0, /* holds at least one letter (or ideograph) */
+    TT_TOKEN_NUMBER    /* digits with separators: 2025, 1,200.50, 3.5 */
+} tt_token_kind;
+
+typedef struct tt_token {
+    size_t off, len;     /* a view into the text, never copied */
+    tt_token_kind kind;
+    int sentence_start;  /* 1 for the first token of the text and the first
+                            after a sentence end (. ! ? … and their full-width
+                            forms) */
+} tt_token;
+
+/* Walks one block of text and yields tokens: UAX #29 segments that hold a
+ * letter or a digit. Segments joined by one hyphen (U+002D, U+2010, U+2011)
+ * with nothing between become one token ("off-balance-sheet", "10-k"). A
+ * token longer than TT_LIMIT_TOKEN_BYTES is skipped and counted in
+ * `overlong`. */
+typedef struct tt_tokenizer {
+    const char *text;
+    size_t len;
+    size_t pos;
+    int at_sentence_start;
+    size_t overlong;
+} tt_tokenizer;
+
+void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
+
+/* Returns 1 and fills tok, or 0 at the end. */
+int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok);
+
+#endif

@@ -1,0 +1,377 @@
+/* termtide — the batch runner.
+ *
+ * Workers take inputs in order from a shared counter, read and count every
+ * document an input holds into that input's result slot, and mark it done.
+ * The calling thread delivers results strictly in input order and frees
+ * them. A worker may run at most `window` inputs ahead of delivery, so
+ * memory is bounded by window × (one input's tables) whatever the batch
+ * size, and output is identical whatever the thread count.
+ *
+ * Failures are per input: a file that cannot be read, decoded or parsed is
+ * recorded as a problem in its slot and delivered in order like a result;
+ * the batch goes on. */
+#include <pthread.h>
+#include <sys/stat.h>
+
+#include <libxml/parser.h>
+
+#include "termtide/batch.h"
+#include "tt_internal.h"
+
+typedef enum { EV_DOC, EV_PROBLEM } event_kind;
+
+typedef struct event {
+    event_kind kind;
+    char *name;
+    /* EV_DOC */
+    char *path, *type, *entity, *period, *form, *notes;
+    const char *encoding;
+    tt_doc_kind doc_kind, outer_kind;
+    uint64_t bytes;
+    tt_doc_stats stats;
+    tt_termtable *table;
+    /* EV_PROBLEM */
+    tt_error err;
+    int skipped;
+} event;
+
+typedef struct slot {
+    event *events;
+    size_t n, cap;
+    size_t parts_skipped;
+    uint64_t bytes;
+    int done;
+    int oom; /* an event could not be recorded */
+} slot;
+
+typedef struct runner {
+    const tt_source_list *inputs;
+    const tt_batch_options *opt;
+    slot *slots;
+    size_t window;
+    pthread_mutex_t lock;
+    pthread_cond_t cond_done, cond_space;
+    size_t next, delivered;
+    int stop;
+} runner;
+
+typedef struct worker_ctx {
+    runner *r;
+    tt_counter *counter;
+    slot *s;
+} worker_ctx;
+
+void tt_batch_options_init(tt_batch_options *o)
+{
+    memset(o, 0, sizeof *o);
+    tt_count_options_init(&o->count);
+    o->threads = 1;
+}
+
+static void event_release(event *e)
+{
+    tt_free(e->name);
+    tt_free(e->path);
+    tt_free(e->type);
+    tt_free(e->entity);
+    tt_free(e->period);
+    tt_free(e->form);
+    tt_free(e->notes);
+    tt_termtable_free(e->table);
+}
+
+static void slot_reset(slot *s)
+{
+    for (size_t i = 0; i < s->n; i++)
+        event_release(&s->events[i]);
+    tt_free(s->events);
+    memset(s, 0, sizeof *s);
+}
+
+static event *slot_push(slot *s)
+{
+    if (s->n == s->cap) {
+        size_t cap = s->cap ? s->cap * 2 : 4;
+        event *e = tt_reallocarray(s->events, cap, sizeof *e);
+        if (!e) {
+            s->oom = 1;
+            return NULL;
+        }
+        s->events = e;
+        s->cap = cap;
+    }
+    event *e = &s->events[s->n++];
+    memset(e, 0, sizeof *e);
+    return e;
+}
+
+static void add_problem(slot *s, const char *name, const tt_error *err, int skipped)
+{
+    event *e = slot_push(s);
+    if (!e)
+        return;
+    e->kind = EV_PROBLEM;
+    e->name = tt_strdup(name);
+    e->err = *err;
+    e->skipped = skipped;
+}
+
+static tt_status on_doc(void *vctx, const tt_document *doc)
+{
+    worker_ctx *w = vctx;
+    slot *s = w->s;
+    tt_error err;
+    tt_error_init(&err);
+    tt_termtable *table = tt_termtable_new();
+    tt_doc_stats stats;
+    memset(&stats, 0, sizeof stats);
+    tt_status st = table ? tt_counter_count(w->counter, doc->blocks, table, &stats) : TT_ENOMEM;
+    if (st) {
+        tt_error_set(&err, st, doc->name, -1, "%s while counting",
+                     st == TT_ELIMIT ? "too many distinct terms" : tt_status_name(st));
+        add_problem(s, doc->name, &err, 1);
+        tt_termtable_free(table);
+        return TT_OK; /* go on with the other parts of a wrapper */
+    }
+    if (doc->notes && doc->notes[0]) {
+        tt_error_set(&err, TT_OK, doc->name, -1, "%s", doc->notes);
+        add_problem(s, doc->name, &err, 0);
+    }
+    if (stats.words_read == 0 && !(doc->notes && strstr(doc->notes, "empty"))) {
+        tt_error_set(&err, TT_OK, doc->name, -1, "no words found");
+        add_problem(s, doc->name, &err, 0);
+    }
+    if (stats.overlong) {
+        tt_error_set(&err, TT_OK, doc->name, -1,
+                     "%llu token(s) longer than %d bytes skipped",
+                     (unsigned long long)stats.overlong, TT_LIMIT_TOKEN_BYTES);
+        add_problem(s, doc->name, &err, 0);
+    }
+    event *e = slot_push(s);
+    if (!e) {
+        tt_termtable_free(table);
+        return TT_OK;
+    }
+    e->kind = EV_DOC;
+    e->name = tt_strdup(doc->name);
+    e->path = tt_strdup(doc->path);
+    e->type = tt_strdup(doc->type ? doc->type : "");
+    e->entity = tt_strdup(doc->entity ? doc->entity : "");
+    e->period = tt_strdup(doc->period ? doc->period : "");
+    e->form = tt_strdup(doc->form ? doc->form : "");
+    e->notes = tt_strdup(doc->notes ? doc->notes : "");
+    e->encoding = tt_encoding_name(doc->decode.encoding);
+    e->doc_kind = doc->kind;
+    e->outer_kind = doc->outer_kind;
+    e->bytes = doc->raw_len;
+    e->stats = stats;
+    e->table = table;
+    if (!e->name || !e->path || !e->type || !e->entity || !e->period || !e->form || !e->notes)
+        s->oom = 1;
+    return TT_OK;
+}
+
+static void process_input(runner *r, tt_counter *counter, size_t i, slot *s)
+{
+    const tt_source_entry *in = &r->inputs->items[i];
+    tt_error err;
+    tt_error_init(&err);
+    if (in->status != TT_OK) {
+        tt_error_set(&err, in->status, in->path, -1, "%s",
+                     in->message ? in->message : tt_status_name(in->status));
+        add_problem(s, in->path, &err, 1);
+        return;
+    }
+    struct stat sb;
+    if (strcmp(in->path, "-") != 0 && stat(in->path, &sb) == 0)
+        s->bytes = (uint64_t)sb.st_size;
+    if (!counter) {
+        tt_error_set(&err, TT_ENOMEM, in->path, -1, "out of memory");
+        add_problem(s, in->path, &err, 1);
+        return;
+    }
+    worker_ctx w = { r, counter, s };
+    size_t parts_skipped = 0;
+    tt_status st = tt_read_documents(in->path, &r->opt->read, on_doc, &w, &parts_skipped, &err);
+    s->parts_skipped = parts_skipped;
+    if (st) {
+        if (!err.file[0])
+            tti_strlcpy(err.file, in->path, sizeof err.file);
+        if (!err.message[0])
+            tti_strlcpy(err.message, tt_status_name(st), sizeof err.message);
+        add_problem(s, err.file, &err, 1);
+    }
+}
+
+static void *worker_main(void *arg)
+{
+    runner *r = arg;
+    tt_counter *counter = tt_counter_new(&r->opt->count);
+    pthread_mutex_lock(&r->lock);
+    for (;;) {
+        while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)
+            pthread_cond_wait(&r->cond_space, &r->lock);
+        if (r->stop || r->next >= r->inputs->n)
+            break;
+        size_t i = r->next++;
+        slot *s = &r->slots[i % r->window];
+        pthread_mutex_unlock(&r->lock);
+        process_input(r, counter, i, s);
+        pthread_mutex_lock(&r->lock);
+        s->done = 1;
+        pthread_cond_broadcast(&r->cond_done);
+    }
+    pthread_mutex_unlock(&r->lock);
+    tt_counter_free(counter);
+    return NULL;
+}
+
+/* Hands one input's events to the caller. */
+static tt_status deliver(runner *r, slot *s, size_t i, tt_batch_summary *sum, tt_error *err)
+{
+    const tt_batch_options *opt = r->opt;
+    sum->parts_skipped += s->parts_skipped;
+    sum->bytes += s->bytes;
+    if (s->oom) {
+        tt_error e;
+        tt_error_init(&e);
+        tt_error_set(&e, TT_ENOMEM, r->inputs->items[i].path, -1, "out of memory");
+        if (opt->on_problem)
+            opt->on_problem(opt->ctx, r->inputs->items[i].path, &e, 1);
+        sum->skipped++;
+        return TT_OK;
+    }
+    for (size_t k = 0; k < s->n; k++) {
+        event *e = &s->events[k];
+        if (e->kind == EV_PROBLEM) {
+            if (e->skipped)
+                sum->skipped++;
+            else
+                sum->notes++;
+            if (opt->on_problem)
+                opt->on_problem(opt->ctx, e->name, &e->err, e->skipped);
+            continue;
+        }
+        tt_doc_result res = {
+            .input = i, .name = e->name, .path = e->path,
+            .kind = e->doc_kind, .outer_kind = e->outer_kind,
+            .encoding = e->encoding, .type = e->type, .entity = e->entity,
+            .period = e->period, .form = e->form, .notes = e->notes,
+            .bytes = e->bytes, .stats = e->stats, .table = e->table,
+        };
+        sum->documents++;
+        sum->words += e->stats.words_read;
+        sum->terms += e->stats.terms_kept;
+        if (opt->on_document) {
+            tt_status st = opt->on_document(opt->ctx, &res);
+            if (st)
+                return tt_error_set(err, st, e->name, -1, "stopped: %s", tt_status_name(st));
+        }
+    }
+    return TT_OK;
+}
+
+static uint64_t total_bytes(const tt_source_list *inputs)
+{
+    uint64_t total = 0;
+    struct stat sb;
+    for (size_t i = 0; i < inputs->n; i++)
+        if (inputs->items[i].status == TT_OK && strcmp(inputs->items[i].path, "-") != 0 &&
+            stat(inputs->items[i].path, &sb) == 0)
+            total += (uint64_t)sb.st_size;
+    return total;
+}
+
+tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt,
+                       tt_batch_summary *sum, tt_error *err)
+{
+    memset(sum, 0, sizeof *sum);
+    sum->inputs = inputs->n;
+    xmlInitParser(); /* once, before any thread parses */
+    uint64_t bytes_total = opt->on_progress ? total_bytes(inputs) : 0;
+    int threads = opt->threads < 1 ? 1 : opt->threads;
+    if (threads > 256)
+        threads = 256;
+    runner r;
+    memset(&r, 0, sizeof r);
+    r.inputs = inputs;
+    r.opt = opt;
+    r.window = opt->window ? opt->window : (size_t)threads * 4;
+    r.slots = tt_calloc(r.window, sizeof *r.slots);
+    if (!r.slots)
+        return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory");
+    tt_status st = TT_OK;
+
+    if (threads == 1) {
+        tt_counter *counter = tt_counter_new(&opt->count);
+        if (!counter) {
+            tt_free(r.slots);
+            return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory (or bad count options)");
+        }
+        for (size_t i = 0; i < inputs->n && !st; i++) {
+            slot *s = &r.slots[0];
+            process_input(&r, counter, i, s);
+            st = deliver(&r, s, i, sum, err);
+            slot_reset(s);
+            if (opt->on_progress)
+                opt->on_progress(opt->ctx, i + 1, inputs->n, sum->bytes, bytes_total);
+        }
+        tt_counter_free(counter);
+        tt_free(r.slots);
+        return st;
+    }
+
+    pthread_mutex_init(&r.lock, NULL);
+    pthread_cond_init(&r.cond_done, NULL);
+    pthread_cond_init(&r.cond_space, NULL);
+    pthread_t *tids = tt_calloc((size_t)threads, sizeof *tids);
+    int started = 0;
+    if (tids)
+        for (; started < threads; started++)
+            if (pthread_create(&tids[started], NULL, worker_main, &r) != 0)
+                break;
+    if (started == 0) {
+        st = tt_error_set(err, TT_ENOMEM, NULL, -1, "could not start worker threads");
+    } else {
+        for (size_t i = 0; i < inputs->n; i++) {
+            slot *s = &r.slots[i % r.window];
+            pthread_mutex_lock(&r.lock);
+            while (!s->done)
+                pthread_cond_wait(&r.cond_done, &r.lock);
+            pthread_mutex_unlock(&r.lock);
+            if (!st)
+                st = deliver(&r, s, i, sum, err);
+            pthread_mutex_lock(&r.lock);
+            slot_reset(s);
+            r.delivered = i + 1;
+            if (st) {
+                r.stop = 1;
+                pthread_cond_broadcast(&r.cond_space);
+                /* wait for the inputs already taken, then stop */
+                size_t taken = r.next;
+                pthread_mutex_unlock(&r.lock);
+                for (size_t j = i + 1; j < taken; j++) {
+                    slot *t = &r.slots[j % r.window];
+                    pthread_mutex_lock(&r.lock);
+                    while (!t->done)
+                        pthread_cond_wait(&r.cond_done, &r.lock);
+                    pthread_mutex_unlock(&r.lock);
+                    slot_reset(t);
+                }
+                break;
+            }
+            pthread_cond_broadcast(&r.cond_space);
+            pthread_mutex_unlock(&r.lock);
+            if (opt->on_progress)
+                opt->on_progress(opt->ctx, i + 1, inputs->n, sum->bytes, bytes_total);
+        }
+    }
+    for (int t = 0; t < started; t++)
+        pthread_join(tids[t], NULL);
+    tt_free(tids);
+    pthread_cond_destroy(&r.cond_space);
+    pthread_cond_destroy(&r.cond_done);
+    pthread_mutex_destroy(&r.lock);
+    tt_free(r.slots);
+    return st;
+}

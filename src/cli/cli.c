@@ -1,0 +1,268 @@
+/* termtide CLI — helpers shared by the subcommands. */
+#include <errno.h>
+#include <stdarg.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+#include <unistd.h>
+
+#include "termtide/alloc.h"
+#include "termtide/filter.h"
+#include "cli.h"
+
+const char *tt_prog = "termtide";
+
+static int progress_shown;
+
+static void clear_progress(void)
+{
+    if (progress_shown) {
+        fputs("\r\033[K", stderr);
+        progress_shown = 0;
+    }
+}
+
+void cli_error(const char *fmt, ...)
+{
+    va_list ap;
+    clear_progress();
+    fprintf(stderr, "%s: error: ", tt_prog);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
+
+void cli_note(const char *fmt, ...)
+{
+    va_list ap;
+    clear_progress();
+    fprintf(stderr, "%s: note: ", tt_prog);
+    va_start(ap, fmt);
+    vfprintf(stderr, fmt, ap);
+    va_end(ap);
+    fputc('\n', stderr);
+}
+
+double cli_now(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec + (double)ts.tv_nsec / 1e9;
+}
+
+int cli_parse_u64(const char *opt, const char *arg, uint64_t min, uint64_t max, uint64_t *out)
+{
+    const char *p = arg;
+    uint64_t v = 0;
+    if (!*p)
+        goto bad;
+    for (; *p; p++) {
+        if (*p < '0' || *p > '9')
+            goto bad;
+        unsigned d = (unsigned)(*p - '0');
+        if (v > (UINT64_MAX - d) / 10)
+            goto bad;
+        v = v * 10 + d;
+    }
+    if (v < min || v > max)
+        goto bad;
+    *out = v;
+    return 1;
+bad:
+    cli_error("%s: expected a whole number from %llu to %llu, got '%s'", opt,
+              (unsigned long long)min, (unsigned long long)max, arg);
+    return 0;
+}
+
+void cli_pipeline_init(cli_pipeline *p)
+{
+    memset(p, 0, sizeof *p);
+    tt_batch_options_init(&p->batch);
+    p->started = cli_now();
+}
+
+void cli_pipeline_release(cli_pipeline *p)
+{
+    tt_termtable_free(p->stopwords);
+    free(p->extra_lists);
+    p->stopwords = NULL;
+    p->extra_lists = NULL;
+}
+
+int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg)
+{
+    uint64_t v;
+    tt_count_options *c = &p->batch.count;
+    switch (opt) {
+    case CLI_OPT_NGRAM: {
+        const char *dash = strchr(arg, '-');
+        if (strlen(arg) == 1 && arg[0] >= '1' && arg[0] <= '3') {
+            c->ngram_min = c->ngram_max = arg[0] - '0';
+        } else if (dash && strlen(arg) == 3 && arg[0] >= '1' && arg[0] <= '3' && arg[2] >= '1' &&
+                   arg[2] <= '3' && arg[0] <= arg[2]) {
+            c->ngram_min = arg[0] - '0';
+            c->ngram_max = arg[2] - '0';
+        } else {
+            cli_error("--ngram: expected N or N-M with 1 <= N <= M <= 3, got '%s'", arg);
+            return -1;
+        }
+        return 1;
+    }
+    case CLI_OPT_STEM: c->stem = 1; return 1;
+    case CLI_OPT_NUMBERS: c->keep_numbers = 1; return 1;
+    case CLI_OPT_MIN_LENGTH:
+        if (!cli_parse_u64("--min-length", arg, 1, 1000, &v))
+            return -1;
+        c->min_length = (size_t)v;
+        return 1;
+    case CLI_OPT_STOPWORDS: {
+        const char **l = realloc(p->extra_lists, (p->n_extra + 1) * sizeof *l);
+        if (!l) {
+            cli_error("out of memory");
+            return -1;
+        }
+        p->extra_lists = l;
+        l[p->n_extra++] = arg;
+        return 1;
+    }
+    case CLI_OPT_NO_STOPWORDS: p->no_stopwords = 1; return 1;
+    case CLI_OPT_TABLES:
+        if (!strcmp(arg, "keep"))
+            p->batch.read.drop_tables = 0;
+        else if (!strcmp(arg, "drop"))
+            p->batch.read.drop_tables = 1;
+        else {
+            cli_error("--tables: expected keep or drop, got '%s'", arg);
+            return -1;
+        }
+        return 1;
+    case CLI_OPT_DOC_TYPES: p->batch.read.doc_types = arg; return 1;
+    case 'j':
+        if (!cli_parse_u64("--jobs", arg, 1, 256, &v))
+            return -1;
+        p->batch.threads = (int)v;
+        return 1;
+    case 'q': p->quiet = 1; return 1;
+    }
+    return 0;
+}
+
+int cli_pipeline_finish(cli_pipeline *p)
+{
+    tt_error err;
+    tt_error_init(&err);
+    p->stopwords = tt_termtable_new();
+    if (!p->stopwords) {
+        cli_error("out of memory");
+        return 0;
+    }
+    if (!p->no_stopwords) {
+        const char *const *names = tt_builtin_stopword_names();
+        for (size_t i = 0; names[i]; i++) {
+            const char *text = tt_builtin_stopwords(names[i]);
+            if (tt_stopwords_load_text(p->stopwords, text, strlen(text), names[i], &err)) {
+                char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+                cli_error("built-in stop-word list %s", tt_error_format(&err, msg, sizeof msg));
+                return 0;
+            }
+        }
+    }
+    for (size_t i = 0; i < p->n_extra; i++) {
+        if (tt_stopwords_load_file(p->stopwords, p->extra_lists[i], &err)) {
+            char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+            cli_error("%s", tt_error_format(&err, msg, sizeof msg));
+            return 0;
+        }
+    }
+    p->batch.count.stopwords = tt_termtable_distinct(p->stopwords) ? p->stopwords : NULL;
+    p->progress = !p->quiet && isatty(2);
+    return 1;
+}
+
+int cli_expand_inputs(tt_source_list *list, int argc, char **argv)
+{
+    if (argc == 0)
+        return tt_source_expand(list, "-") == TT_OK;
+    for (int i = 0; i < argc; i++)
+        if (tt_source_expand(list, argv[i]) != TT_OK) {
+            cli_error("out of memory while listing inputs");
+            return 0;
+        }
+    return 1;
+}
+
+static void on_problem(void *ctx, const char *name, const tt_error *err, int skipped)
+{
+    cli_pipeline *p = ctx;
+    const char *msg = err->message[0] ? err->message : tt_status_name(err->status);
+    if (skipped) {
+        unsigned s = (unsigned)err->status;
+        if (s < sizeof p->skipped_by_status / sizeof p->skipped_by_status[0])
+            p->skipped_by_status[s]++;
+        if (err->line > 0)
+            cli_error("%s: line %ld: %s (skipped)", name, err->line, msg);
+        else if (err->offset >= 0)
+            cli_error("%s: byte %lld: %s (skipped)", name, err->offset, msg);
+        else
+            cli_error("%s: %s (skipped)", name, msg);
+    } else if (!p->quiet) {
+        cli_note("%s: %s", name, msg);
+    }
+}
+
+static void on_progress(void *ctx, size_t done, size_t total, uint64_t bytes_done,
+                        uint64_t bytes_total)
+{
+    cli_pipeline *p = ctx;
+    if (!p->progress)
+        return;
+    double now = cli_now();
+    if (done < total && now - p->last_progress < 0.2)
+        return;
+    p->last_progress = now;
+    double elapsed = now - p->started;
+    double mbs = elapsed > 0 ? (double)bytes_done / 1e6 / elapsed : 0;
+    char left[32] = "?";
+    if (bytes_done > 0 && bytes_total >= bytes_done && elapsed > 0) {
+        double rest = elapsed * (double)(bytes_total - bytes_done) / (double)bytes_done;
+        snprintf(left, sizeof left, "%.0f s", rest);
+    }
+    fprintf(stderr, "\r\033[K%s: %zu/%zu documents, %.1f MB/s, %s left", tt_prog, done, total,
+            mbs, left);
+    progress_shown = 1;
+    if (done == total)
+        clear_progress();
+}
+
+void cli_pipeline_hooks(cli_pipeline *p)
+{
+    p->batch.on_problem = on_problem;
+    p->batch.on_progress = on_progress;
+}
+
+void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s)
+{
+    clear_progress();
+    if (p->quiet)
+        return;
+    double secs = cli_now() - p->started;
+    fprintf(stderr, "%s %s: %zu document%s read, %zu skipped", tt_prog, cmd, s->documents,
+            s->documents == 1 ? "" : "s", s->skipped);
+    if (s->skipped) {
+        const char *sep = " (";
+        for (unsigned i = 0; i < sizeof p->skipped_by_status / sizeof p->skipped_by_status[0]; i++)
+            if (p->skipped_by_status[i]) {
+                fprintf(stderr, "%s%zu %s", sep, p->skipped_by_status[i],
+                        tt_status_name((tt_status)i));
+                sep = ", ";
+            }
+        fputc(')', stderr);
+    }
+    if (s->parts_skipped)
+        fprintf(stderr, ", %zu wrapper part%s left out", s->parts_skipped,
+                s->parts_skipped == 1 ? "" : "s");
+    fprintf(stderr, ", %llu words, %llu terms counted, %.1f MB in %.2f s\n",
+            (unsigned long long)s->words, (unsigned long long)s->terms, (double)s->bytes / 1e6,
+            secs);
+}

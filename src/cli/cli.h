@@ -1,0 +1,113 @@
+/* termtide CLI — shared helpers for the subcommands (option values, the
+ * pipeline options every reading command takes, messages). The CLI includes
+ * only public headers from include/termtide/. */
+#ifndef TT_CLI_H
+#define TT_CLI_H
+
+#include <getopt.h>
+#include <stdint.h>
+#include <stdio.h>
+
+#include "termtide/batch.h"
+#include "termtide/output.h"
+#include "termtide/source.h"
+#include "termtide/status.h"
+#include "termtide/termtable.h"
+
+#include "../banned.h"
+
+#define TT_EXIT_OK 0
+#define TT_EXIT_NONE 1    /* reserved: nothing found (search) */
+#define TT_EXIT_TROUBLE 2 /* bad usage, or an input skipped or failed */
+
+typedef int (*tt_cmd_fn)(int argc, char **argv);
+
+typedef struct tt_command {
+    const char *name;
+    tt_cmd_fn run;
+    const char *summary;
+    const char *help; /* full help text */
+} tt_command;
+
+int tt_cmd_count(int argc, char **argv);
+extern const char tt_help_count[];
+
+/* The program name for messages. */
+extern const char *tt_prog;
+
+void cli_error(const char *fmt, ...) __attribute__((format(printf, 1, 2)));
+void cli_note(const char *fmt, ...) __attribute__((format(printf, 1, 2)));
+
+/* Parses a non-negative decimal integer (no sign, no junk) within
+ * [min, max]; prints an error naming the option and returns 0 on failure. */
+int cli_parse_u64(const char *opt, const char *arg, uint64_t min, uint64_t max, uint64_t *out);
+
+/* Options shared by every command that reads documents. */
+typedef struct cli_pipeline {
+    tt_batch_options batch;
+    tt_termtable *stopwords;
+    int no_stopwords;
+    const char **extra_lists;
+    size_t n_extra;
+    int quiet;
+    int progress;     /* stderr is a terminal and not quiet */
+    double started;   /* monotonic seconds */
+    double last_progress;
+    size_t skipped_by_status[16];
+} cli_pipeline;
+
+/* getopt_long ids for the pipeline options, above any short option. */
+enum {
+    CLI_OPT_NGRAM = 1000, CLI_OPT_STEM, CLI_OPT_NUMBERS, CLI_OPT_MIN_LENGTH,
+    CLI_OPT_STOPWORDS, CLI_OPT_NO_STOPWORDS, CLI_OPT_TABLES, CLI_OPT_DOC_TYPES,
+    CLI_OPT_QUIET, CLI_OPT_FIRST_FREE
+};
+
+#define CLI_PIPELINE_LONGOPTS                                           \
+    { "ngram", required_argument, NULL, CLI_OPT_NGRAM },                \
+    { "stem", no_argument, NULL, CLI_OPT_STEM },                        \
+    { "numbers", no_argument, NULL, CLI_OPT_NUMBERS },                  \
+    { "min-length", required_argument, NULL, CLI_OPT_MIN_LENGTH },      \
+    { "stopwords", required_argument, NULL, CLI_OPT_STOPWORDS },        \
+    { "no-stopwords", no_argument, NULL, CLI_OPT_NO_STOPWORDS },        \
+    { "tables", required_argument, NULL, CLI_OPT_TABLES },              \
+    { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },        \
+    { "jobs", required_argument, NULL, 'j' },                           \
+    { "quiet", no_argument, NULL, 'q' }
+
+#define CLI_PIPELINE_HELP                                                          \
+    "Reading options (every command that reads documents):\n"                       \
+    "  -j, --jobs N          worker threads (default 1); output is identical for any N\n" \
+    "  --ngram N|N-M         count n-grams of N (to M) words, N, M in 1..3 (default 1);\n" \
+    "                        never across a sentence or block, never starting or ending\n" \
+    "                        with a stop-word\n"                                        \
+    "  --stem                reduce words to Snowball English (Porter2) stems\n"        \
+    "  --numbers             count numbers, amounts and percentages as terms\n"         \
+    "  --min-length N        leave out words shorter than N characters\n"               \
+    "  --stopwords FILE      add a stop-word list (repeatable; one word a line, #\n"    \
+    "                        comments)\n"                                               \
+    "  --no-stopwords        do not use the built-in lists (english, filing)\n"         \
+    "  --tables keep|drop    keep (default) or leave out the text of HTML tables\n"     \
+    "  --doc-types LIST      submission-wrapper parts to keep: comma-separated types,\n" \
+    "                        a trailing * matches a prefix (EX-99*), or 'all'; the\n"   \
+    "                        default keeps the main documents and skips exhibits\n"     \
+    "                        (EX-*), graphics, archives and XML; uuencoded parts are\n" \
+    "                        always skipped\n"                                          \
+    "  -q, --quiet           no progress and no closing summary on stderr\n"
+
+void cli_pipeline_init(cli_pipeline *p);
+void cli_pipeline_release(cli_pipeline *p);
+/* Handles one getopt result if it is a pipeline option: returns 1 when
+ * handled, 0 when not a pipeline option, -1 on a bad value (message printed). */
+int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg);
+/* Loads the stop-word lists; prints errors; returns 0 on failure. */
+int cli_pipeline_finish(cli_pipeline *p);
+/* Expands the paths (or "-" when none); returns 0 on out-of-memory. */
+int cli_expand_inputs(tt_source_list *list, int argc, char **argv);
+/* Installs progress and problem reporting on p->batch (ctx must be p). */
+void cli_pipeline_hooks(cli_pipeline *p);
+/* Prints the closing one-line summary on stderr (unless quiet). */
+void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s);
+double cli_now(void);
+
+#endif

@@ -1,0 +1,105 @@
+/* termtide — the command-line program: dispatches to one function per
+ * subcommand, from the table below, which also drives --help. */
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+#include <unistd.h>
+
+#include <libxml/xmlversion.h>
+#include <utf8proc.h>
+#include <zlib.h>
+
+#include "termtide/segment.h"
+#include "termtide/termtable.h"
+#include "cli.h"
+
+static const tt_command commands[] = {
+    { "count", tt_cmd_count, "term-frequency tables per document or for all input",
+      tt_help_count },
+};
+#define NCOMMANDS (sizeof commands / sizeof commands[0])
+
+static const char caution[] =
+    "termtide measures language. It gives no investment, legal or compliance advice;\n"
+    "defer to your firm's policies and to licensed professionals.\n";
+
+static void usage(FILE *f)
+{
+    fprintf(f, "Usage: termtide COMMAND [OPTIONS] [PATH...]\n\n"
+               "Term-frequency tables and change measures for filings and call transcripts.\n\n"
+               "Commands:\n");
+    for (size_t i = 0; i < NCOMMANDS; i++)
+        fprintf(f, "  %-10s %s\n", commands[i].name, commands[i].summary);
+    fprintf(f, "  %-10s %s\n", "help", "help on a command: termtide help COMMAND");
+    fprintf(f, "\nOptions:\n  -h, --help     this help\n  -V, --version  version and "
+               "library versions\n\n%s",
+            caution);
+}
+
+static void version(void)
+{
+    printf("termtide %s\n", TT_VERSION);
+    printf("Unicode %s (word boundaries, UAX #29); utf8proc %s (Unicode normalization)\n",
+           tt_unicode_version(), utf8proc_version());
+    printf("libxml2 %s; zlib %s; Snowball English (Porter2) stemmer from libstemmer\n",
+           LIBXML_DOTTED_VERSION, zlibVersion());
+}
+
+static const tt_command *find(const char *name)
+{
+    for (size_t i = 0; i < NCOMMANDS; i++)
+        if (!strcmp(commands[i].name, name))
+            return &commands[i];
+    return NULL;
+}
+
+/* A per-run hash key, so crafted input cannot aim at the term table. */
+static void seed_hash(void)
+{
+    uint64_t k[2] = { 0, 0 };
+    FILE *f = fopen("/dev/urandom", "rb");
+    if (!f || fread(k, sizeof k, 1, f) != 1) {
+        k[0] = (uint64_t)time(NULL) ^ ((uint64_t)getpid() << 32);
+        k[1] = (uint64_t)clock() * 0x9E3779B97F4A7C15ULL;
+    }
+    if (f)
+        fclose(f);
+    tt_termtable_set_seed(k[0], k[1]);
+}
+
+int main(int argc, char **argv)
+{
+    if (argc < 2) {
+        usage(stderr);
+        return TT_EXIT_TROUBLE;
+    }
+    const char *cmd = argv[1];
+    if (!strcmp(cmd, "-h") || !strcmp(cmd, "--help")) {
+        usage(stdout);
+        return TT_EXIT_OK;
+    }
+    if (!strcmp(cmd, "-V") || !strcmp(cmd, "--version")) {
+        version();
+        return TT_EXIT_OK;
+    }
+    if (!strcmp(cmd, "help")) {
+        if (argc < 3) {
+            usage(stdout);
+            return TT_EXIT_OK;
+        }
+        const tt_command *c = find(argv[2]);
+        if (!c) {
+            cli_error("no such command: '%s' (see termtide --help)", argv[2]);
+            return TT_EXIT_TROUBLE;
+        }
+        fputs(c->help, stdout);
+        return TT_EXIT_OK;
+    }
+    const tt_command *c = find(cmd);
+    if (!c) {
+        cli_error("no such command: '%s' (see termtide --help)", cmd);
+        return TT_EXIT_TROUBLE;
+    }
+    seed_hash();
+    return c->run(argc - 1, argv + 1);
+}

@@ -1,0 +1,299 @@
+/* termtide — term table: term string → count.
+ *
+ * Layout: an open-addressing table of slots {hash, term pointer, length,
+ * count} with linear probing, capacity a power of two, kept at most 70%
+ * full (grown by doubling, which rehashes from the stored hashes without
+ * touching the strings). Term strings live in an arena of large chunks, so
+ * a new term costs one memcpy and no malloc; strings never move, so entry
+ * pointers stay valid until the table is freed or reset.
+ *
+ * Hash: SipHash-1-3 with a 128-bit key (Aumasson & Bernstein 2012, "SipHash:
+ * a fast short-input PRF"), so crafted terms cannot force collisions without
+ * the key. The key is process-wide; output never follows hash order, it is
+ * sorted by count then term (tt_termtable_sorted).
+ *
+ * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
+ * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
+#include <stdlib.h>
+
+#include "termtide/termtable.h"
+#include "tt_internal.h"
+
+typedef struct slot {
+    uint64_t hash;
+    const char *term;
+    size_t len;
+    uint64_t count;
+} slot;
+
+typedef struct chunk {
+    struct chunk *next;
+    size_t used, size;
+    char data[];
+} chunk;
+
+struct tt_termtable {
+    slot *slots;
+    size_t cap;       /* power of two */
+    size_t distinct;
+    uint64_t total;
+    chunk *arena;     /* newest first */
+};
+
+#define ARENA_CHUNK ((size_t)256 * 1024)
+#define INITIAL_CAP 1024
+
+static uint64_t key0 = 0x736f6d6570736575ULL, key1 = 0x646f72616e646f6dULL;
+
+void tt_termtable_set_seed(uint64_t k0, uint64_t k1)
+{
+    key0 = k0;
+    key1 = k1;
+}
+
+#define ROTL(x, b) (uint64_t)(((x) << (b)) | ((x) >> (64 - (b))))
+#define SIPROUND                                                                   \
+    do {                                                                           \
+        v0 += v1; v1 = ROTL(v1, 13); v1 ^= v0; v0 = ROTL(v0, 32);                  \
+        v2 += v3; v3 = ROTL(v3, 16); v3 ^= v2;                                     \
+        v0 += v3; v3 = ROTL(v3, 21); v3 ^= v0;                                     \
+        v2 += v1; v1 = ROTL(v1, 17); v1 ^= v2; v2 = ROTL(v2, 32);                  \
+    } while (0)
+
+/* SipHash-1-3: one compression round per 8-byte word, three finalisation
+ * rounds. */
+static uint64_t siphash13(const unsigned char *in, size_t len)
+{
+    uint64_t v0 = 0x736f6d6570736575ULL ^ key0;
+    uint64_t v1 = 0x646f72616e646f6dULL ^ key1;
+    uint64_t v2 = 0x6c7967656e657261ULL ^ key0;
+    uint64_t v3 = 0x7465646279746573ULL ^ key1;
+    uint64_t b = (uint64_t)len << 56;
+    const unsigned char *end = in + (len & ~(size_t)7);
+    for (; in != end; in += 8) {
+        uint64_t m;
+        memcpy(&m, in, 8); /* little-endian hosts; the hash stays internal */
+        v3 ^= m;
+        SIPROUND;
+        v0 ^= m;
+    }
+    switch (len & 7) {
+    case 7: b |= (uint64_t)in[6] << 48; /* fall through */
+    case 6: b |= (uint64_t)in[5] << 40; /* fall through */
+    case 5: b |= (uint64_t)in[4] << 32; /* fall through */
+    case 4: b |= (uint64_t)in[3] << 24; /* fall through */
+    case 3: b |= (uint64_t)in[2] << 16; /* fall through */
+    case 2: b |= (uint64_t)in[1] << 8;  /* fall through */
+    case 1: b |= (uint64_t)in[0]; break;
+    case 0: break;
+    }
+    v3 ^= b;
+    SIPROUND;
+    v0 ^= b;
+    v2 ^= 0xff;
+    SIPROUND;
+    SIPROUND;
+    SIPROUND;
+    return v0 ^ v1 ^ v2 ^ v3;
+}
+
+tt_termtable *tt_termtable_new(void)
+{
+    tt_termtable *t = tt_calloc(1, sizeof *t);
+    if (!t)
+        return NULL;
+    t->slots = tt_calloc(INITIAL_CAP, sizeof *t->slots);
+    if (!t->slots) {
+        tt_free(t);
+        return NULL;
+    }
+    t->cap = INITIAL_CAP;
+    return t;
+}
+
+static void free_arena(chunk *c)
+{
+    while (c) {
+        chunk *next = c->next;
+        tt_free(c);
+        c = next;
+    }
+}
+
+void tt_termtable_free(tt_termtable *t)
+{
+    if (!t)
+        return;
+    free_arena(t->arena);
+    tt_free(t->slots);
+    tt_free(t);
+}
+
+void tt_termtable_reset(tt_termtable *t)
+{
+    memset(t->slots, 0, t->cap * sizeof *t->slots);
+    t->distinct = 0;
+    t->total = 0;
+    /* Keep the newest chunk for reuse; free the rest. */
+    if (t->arena) {
+        free_arena(t->arena->next);
+        t->arena->next = NULL;
+        t->arena->used = 0;
+    }
+}
+
+static const char *arena_copy(tt_termtable *t, const char *s, size_t len)
+{
+    chunk *c = t->arena;
+    if (!c || c->size - c->used < len + 1) {
+        size_t size = len + 1 > ARENA_CHUNK ? len + 1 : ARENA_CHUNK;
+        c = tt_malloc(sizeof *c + size);
+        if (!c)
+            return NULL;
+        c->size = size;
+        c->used = 0;
+        c->next = t->arena;
+        t->arena = c;
+    }
+    char *p = c->data + c->used;
+    memcpy(p, s, len);
+    p[len] = '\0';
+    c->used += len + 1;
+    return p;
+}
+
+static tt_status grow(tt_termtable *t)
+{
+    size_t cap = t->cap * 2;
+    slot *slots = tt_calloc(cap, sizeof *slots);
+    if (!slots)
+        return TT_ENOMEM;
+    for (size_t i = 0; i < t->cap; i++) {
+        if (!t->slots[i].term)
+            continue;
+        size_t j = (size_t)t->slots[i].hash & (cap - 1);
+        while (slots[j].term)
+            j = (j + 1) & (cap - 1);
+        slots[j] = t->slots[i];
+    }
+    tt_free(t->slots);
+    t->slots = slots;
+    t->cap = cap;
+    return TT_OK;
+}
+
+static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
+{
+    size_t i = (size_t)h & (t->cap - 1);
+    for (;;) {
+        slot *s = &t->slots[i];
+        if (!s->term)
+            return s;
+        if (s->hash == h && s->len == len && memcmp(s->term, term, len) == 0)
+            return s;
+        i = (i + 1) & (t->cap - 1);
+    }
+}
+
+tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64_t count)
+{
+    uint64_t h = siphash13((const unsigned char *)term, len);
+    slot *s = find(t, term, len, h);
+    if (s->term) {
+        s->count += count;
+        t->total += count;
+        return TT_OK;
+    }
+    if (t->distinct >= TT_LIMIT_DISTINCT_TERMS)
+        return TT_ELIMIT;
+    if ((t->distinct + 1) * 10 > t->cap * 7) {
+        tt_status st = grow(t);
+        if (st)
+            return st;
+        s = find(t, term, len, h);
+    }
+    const char *copy = arena_copy(t, term, len);
+    if (!copy)
+        return TT_ENOMEM;
+    s->hash = h;
+    s->term = copy;
+    s->len = len;
+    s->count = count;
+    t->distinct++;
+    t->total += count;
+    return TT_OK;
+}
+
+uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
+{
+    uint64_t h = siphash13((const unsigned char *)term, len);
+    const slot *s = find(t, term, len, h);
+    return s->term ? s->count : 0;
+}
+
+size_t tt_termtable_distinct(const tt_termtable *t) { return t->distinct; }
+uint64_t tt_termtable_total(const tt_termtable *t) { return t->total; }
+
+tt_status tt_termtable_merge(tt_termtable *dst, const tt_termtable *src)
+{
+    for (size_t i = 0; i < src->cap; i++) {
+        const slot *s = &src->slots[i];
+        if (!s->term)
+            continue;
+        tt_status st = tt_termtable_add(dst, s->term, s->len, s->count);
+        if (st)
+            return st;
+    }
+    return TT_OK;
+}
+
+static int bytes_cmp(const char *a, size_t alen, const char *b, size_t blen)
+{
+    size_t n = alen < blen ? alen : blen;
+    int c = memcmp(a, b, n);
+    if (c)
+        return c;
+    return alen < blen ? -1 : alen > blen;
+}
+
+static int entry_cmp(const void *pa, const void *pb)
+{
+    const tt_term_entry *a = pa, *b = pb;
+    if (a->count != b->count)
+        return a->count > b->count ? -1 : 1;
+    return bytes_cmp(a->term, a->len, b->term, b->len);
+}
+
+tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n)
+{
+    tt_term_entry *e = tt_reallocarray(NULL, t->distinct ? t->distinct : 1, sizeof *e);
+    if (!e)
+        return TT_ENOMEM;
+    size_t k = 0;
+    for (size_t i = 0; i < t->cap; i++) {
+        const slot *s = &t->slots[i];
+        if (!s->term)
+            continue;
+        e[k].term = s->term;
+        e[k].len = s->len;
+        e[k].count = s->count;
+        k++;
+    }
+    qsort(e, k, sizeof *e, entry_cmp);
+    *out = e;
+    *n = k;
+    return TT_OK;
+}
+
+void tt_termtable_foreach(const tt_termtable *t,
+                          int (*fn)(void *ctx, const tt_term_entry *e), void *ctx)
+{
+    for (size_t i = 0; i < t->cap; i++) {
+        const slot *s = &t->slots[i];
+        if (!s->term)
+            continue;
+        tt_term_entry e = { s->term, s->len, s->count };
+        if (fn(ctx, &e))
+            return;
+    }
+}
