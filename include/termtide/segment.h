@@ -13,7 +13,12 @@ const char *tt_unicode_version(void);
 
 /* Returns the next UAX #29 default word boundary after pos (pos < len),
  * following every rule WB1–WB999 of Unicode's UAX #29 (WB3c uses
- * Extended_Pictographic). text must be valid UTF-8. Returns len at the end. */
+ * Extended_Pictographic). Returns len at the end (or when pos >= len).
+ * pos must be 0 or a boundary this function returned: the walk starts
+ * fresh at pos, so from any other position the text before it is ignored,
+ * as if the text began there. text should be valid UTF-8 (the decode stage
+ * guarantees it); an invalid byte is read as one U+FFFD, never past len.
+ * Never allocates; O(length of the segment). */
 size_t tt_wordbreak_next(const char *text, size_t len, size_t pos);
 
 typedef enum tt_token_kind {
@@ -25,15 +30,22 @@ typedef struct tt_token {
     size_t off, len;     /* a view into the text, never copied */
     tt_token_kind kind;
     int sentence_start;  /* 1 for the first token of the text and the first
-                            after a sentence end (. ! ? … and their full-width
-                            forms) */
+                            after a sentence end: a segment that is not a
+                            token and holds a Sentence_Terminal character
+                            (. ! ? their full-width forms, U+3002 and the
+                            other scripts' stops) or U+2026 … . A '.' inside
+                            a token ("3.5", "e.g") is no sentence end. */
 } tt_token;
 
 /* Walks one block of text and yields tokens: UAX #29 segments that hold a
- * letter or a digit. Segments joined by one hyphen (U+002D, U+2010, U+2011)
- * with nothing between become one token ("off-balance-sheet", "10-k"). A
- * token longer than TT_LIMIT_TOKEN_BYTES is skipped and counted in
- * `overlong`. */
+ * letter (General_Category L*, or Word_Break ALetter, Hebrew_Letter,
+ * Katakana; so each CJK ideograph is a token) or a digit (Word_Break
+ * Numeric). Segments joined by one hyphen (U+002D, U+2010, U+2011) with
+ * nothing between become one token ("off-balance-sheet", "10-k"); it is a
+ * NUMBER only if no part holds a letter ("2024-2025"). A token longer than
+ * TT_LIMIT_TOKEN_BYTES is skipped and counted in `overlong`; a pending
+ * sentence start passes to the next token kept. The tokenizer holds a view
+ * of the text (the caller keeps it alive), never allocates, and is O(n). */
 typedef struct tt_tokenizer {
     const char *text;
     size_t len;

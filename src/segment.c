@@ -1,0 +1,366 @@
+/* termtide — the segment stage: UAX #29 default word boundaries and the
+ * tokens (words and numbers) built from them.
+ *
+ * Word boundaries follow Unicode Standard Annex #29, "Unicode Text
+ * Segmentation", section 4.1.1 (Word Boundary Rules, WB1–WB999), for
+ * Unicode 15.0 (TT_UNICODE_VERSION); they are checked against all cases of
+ * Unicode's WordBreakTest.txt by tests/test_wordbreak_uax29.c.
+ *
+ * How the rules are run. segment_end() walks forward from a boundary one
+ * character at a time and decides, at each position between the previous
+ * character and the current one, "break" or "no break", in rule order:
+ *   - rules WB3–WB3d look at the raw neighbours (CR LF, newlines, ZWJ before
+ *     an Extended_Pictographic, WSegSpace runs);
+ *   - WB4 makes Extend, Format and ZWJ invisible to the later rules: they
+ *     never break from what precedes them, and the later rules see the last
+ *     character that was not one of them. So the walk keeps three facts:
+ *     `raw` (the property of the character just before the position, for
+ *     WB3c/WB3d), `prev` and `prev2` (the last two characters the later rules
+ *     see, for WB7, WB7c and WB11, which look one character back);
+ *   - WB6, WB7b and WB12 look one visible character ahead (skipping
+ *     Extend/Format/ZWJ) with next_visible();
+ *   - WB15/WB16 pair regional indicators: `ri_odd` says an odd number of
+ *     them ends at `prev`.
+ * Starting at a boundary with no history is exact. WB7, WB7c and WB11 look
+ * back past the character after a boundary only if that character is a
+ * Mid* or quote character whose right neighbour completes the rule; but then WB6, WB7b or
+ * WB12, seeing the same three characters, would have refused the break, so
+ * the position was no boundary. For WB15/WB16, a boundary between regional
+ * indicators only falls after an even number of them, so counting restarts.
+ *
+ * Cost. Each character is classified by one lookup in a two-stage table
+ * generated from the Unicode data (src/wordbreak_data.h); bytes below 0x80
+ * index the table directly with no UTF-8 decoding. Inside a word, ASCII
+ * letters, digits and '_' never break from a letter, digit or '_' before
+ * them (WB5, WB8–WB10, WB13a, WB13b), so such runs are consumed by a tight
+ * loop. The lookahead of WB6/WB7b/WB12 crosses only Extend/Format/ZWJ
+ * characters that the walk then consumes, so every byte is read at most
+ * twice: O(n) per text, whatever its shape.
+ *
+ * Tokens. A token is a segment holding a letter or a digit (Word_Break
+ * Numeric, which covers every decimal digit, General_Category Nd). Token
+ * segments joined by a single hyphen segment (U+002D, U+2010 or U+2011,
+ * nothing attached) become one token. ASCII spaces and punctuation, the
+ * most common non-token segments, are stepped over without entering
+ * segment_end(). The tokenizer never allocates or copies, and never walks
+ * back: an over-long token (a 50 MB run of letters, a base64 blob) is
+ * walked once, counted, and dropped. */
+#include "tt_internal.h"
+
+#include "termtide/segment.h"
+#include "wordbreak_data.h"
+
+/* Bits segment_end() reports about the characters of a segment. The letter
+ * and terminal bits are those of the class table; the digit bit is ours. */
+#define SEEN_LETTER TTI_WB_LETTER
+#define SEEN_TERMINAL TTI_WB_TERMINAL
+#define SEEN_DIGIT 0x100u
+
+#define BIT(p) (1u << (p))
+/* AHLetter, MidNumLetQ and friends, as sets of property values (UAX #29
+ * section 4.1.1 macros). */
+#define SET_AHLETTER (BIT(TTI_WB_ALETTER) | BIT(TTI_WB_HEBREW_LETTER))
+#define SET_MIDNUMLETQ (BIT(TTI_WB_MIDNUMLET) | BIT(TTI_WB_SINGLE_QUOTE))
+#define SET_IGNORED (BIT(TTI_WB_EXTEND) | BIT(TTI_WB_FORMAT) | BIT(TTI_WB_ZWJ))
+#define SET_NEWLINE (BIT(TTI_WB_CR) | BIT(TTI_WB_LF) | BIT(TTI_WB_NEWLINE))
+/* Previous characters after which an ASCII letter, digit or '_' (the bytes
+ * of tti_wb_ascii_run) never breaks (WB5, WB8, WB9, WB10, WB13a, WB13b). */
+#define SET_WORDRUN_PREV \
+    (SET_AHLETTER | BIT(TTI_WB_NUMERIC) | BIT(TTI_WB_EXTENDNUMLET))
+
+const char *tt_unicode_version(void)
+{
+    return TT_UNICODE_VERSION;
+}
+
+/* Decodes the character at s (n > 0 bytes available) and returns its class
+ * byte, storing its length in *adv. Kept inline here, rather than calling
+ * tti_utf8_decode(), because it runs once per non-ASCII character on the hot
+ * path. Invalid or truncated sequences (the decode stage has already
+ * repaired the text, so these only come from a careless caller) count as one
+ * byte of U+FFFD, class Other, exactly as tti_utf8_decode() reads them. */
+static inline unsigned class_at(const unsigned char *s, size_t n, size_t *adv)
+{
+    unsigned c = s[0];
+    if (c < 0x80) {
+        *adv = 1;
+        return tti_wb_stage2[c];
+    }
+    uint32_t cp, min;
+    size_t len;
+    if (c >= 0xC2 && c <= 0xDF) {
+        len = 2; cp = c & 0x1F; min = 0x80;
+    } else if (c >= 0xE0 && c <= 0xEF) {
+        len = 3; cp = c & 0x0F; min = 0x800;
+    } else if (c >= 0xF0 && c <= 0xF4) {
+        len = 4; cp = c & 0x07; min = 0x10000;
+    } else {
+        goto invalid;
+    }
+    if (n < len)
+        goto invalid;
+    for (size_t i = 1; i < len; i++) {
+        if ((s[i] & 0xC0) != 0x80)
+            goto invalid;
+        cp = (cp << 6) | (s[i] & 0x3Fu);
+    }
+    if (cp < min || cp > TTI_WB_MAX_CP || (cp >= 0xD800 && cp <= 0xDFFF))
+        goto invalid;
+    *adv = len;
+    return tti_wb_class(cp);
+invalid:
+    *adv = 1;
+    return tti_wb_class(0xFFFD);
+}
+
+/* The property of the first character at or after q that is not Extend,
+ * Format or ZWJ (WB4), or Other at the end of the text. */
+static unsigned next_visible(const unsigned char *s, size_t len, size_t q)
+{
+    while (q < len) {
+        size_t n;
+        unsigned p = class_at(s + q, len - q, &n) & TTI_WB_PROP_MASK;
+        if (!(BIT(p) & SET_IGNORED))
+            return p;
+        q += n;
+    }
+    return TTI_WB_OTHER;
+}
+
+/* Rules WB5–WB16 at the position before cur (at s[q..], the character
+ * after it at s[after..]). Returns 1 for "no break". WB999 is the fallback:
+ * break. */
+static int joins(unsigned prev2, unsigned prev, unsigned cur, int ri_odd,
+                 const unsigned char *s, size_t len, size_t after)
+{
+    unsigned bp = BIT(prev), bc = BIT(cur);
+
+    if (bp & SET_AHLETTER) {
+        if (bc & SET_AHLETTER)                                   /* WB5 */
+            return 1;
+        if ((bc & (BIT(TTI_WB_MIDLETTER) | SET_MIDNUMLETQ)) &&   /* WB6 */
+            (BIT(next_visible(s, len, after)) & SET_AHLETTER))
+            return 1;
+        if (prev == TTI_WB_HEBREW_LETTER) {
+            if (cur == TTI_WB_SINGLE_QUOTE)                      /* WB7a */
+                return 1;
+            if (cur == TTI_WB_DOUBLE_QUOTE &&                    /* WB7b */
+                next_visible(s, len, after) == TTI_WB_HEBREW_LETTER)
+                return 1;
+        }
+        if (cur == TTI_WB_NUMERIC)                               /* WB9 */
+            return 1;
+        return cur == TTI_WB_EXTENDNUMLET;                       /* WB13a */
+    }
+    if ((bp & (BIT(TTI_WB_MIDLETTER) | SET_MIDNUMLETQ)) &&      /* WB7 */
+        (BIT(prev2) & SET_AHLETTER) && (bc & SET_AHLETTER))
+        return 1;
+    if (prev == TTI_WB_DOUBLE_QUOTE && prev2 == TTI_WB_HEBREW_LETTER && /* WB7c */
+        cur == TTI_WB_HEBREW_LETTER)
+        return 1;
+    if (prev == TTI_WB_NUMERIC) {
+        if (cur == TTI_WB_NUMERIC)                               /* WB8 */
+            return 1;
+        if (bc & SET_AHLETTER)                                   /* WB10 */
+            return 1;
+        if ((bc & (BIT(TTI_WB_MIDNUM) | SET_MIDNUMLETQ)) &&      /* WB12 */
+            next_visible(s, len, after) == TTI_WB_NUMERIC)
+            return 1;
+        return cur == TTI_WB_EXTENDNUMLET;                       /* WB13a */
+    }
+    if ((bp & (BIT(TTI_WB_MIDNUM) | SET_MIDNUMLETQ)) &&          /* WB11 */
+        prev2 == TTI_WB_NUMERIC && cur == TTI_WB_NUMERIC)
+        return 1;
+    if (prev == TTI_WB_KATAKANA)                           /* WB13, WB13a */
+        return cur == TTI_WB_KATAKANA || cur == TTI_WB_EXTENDNUMLET;
+    if (prev == TTI_WB_EXTENDNUMLET)                       /* WB13a, WB13b */
+        return (bc & (SET_AHLETTER | BIT(TTI_WB_NUMERIC) | BIT(TTI_WB_KATAKANA) |
+                      BIT(TTI_WB_EXTENDNUMLET))) != 0;
+    if (prev == TTI_WB_REGIONAL_INDICATOR)                 /* WB15, WB16 */
+        return cur == TTI_WB_REGIONAL_INDICATOR && ri_odd;
+    return 0;                                                     /* WB999 */
+}
+
+/* The next word boundary after pos (< len), a boundary itself. *seen gets
+ * the SEEN_ bits of the segment's characters. */
+static size_t segment_end(const unsigned char *s, size_t len, size_t pos,
+                          unsigned *seen)
+{
+    size_t n, p;
+    unsigned c = class_at(s + pos, len - pos, &n);
+    unsigned prev = c & TTI_WB_PROP_MASK;
+    unsigned acc = c, digit = prev == TTI_WB_NUMERIC ? SEEN_DIGIT : 0;
+
+    p = pos + n;
+    if (BIT(prev) & SET_NEWLINE) {
+        /* WB3: CR × LF; WB3a: break after any newline. */
+        if (prev == TTI_WB_CR && p < len && s[p] == '\n')
+            p++;
+        *seen = acc & (SEEN_LETTER | SEEN_TERMINAL);
+        return p;
+    }
+    unsigned prev2 = TTI_WB_OTHER, raw = prev;
+    int ri_odd = prev == TTI_WB_REGIONAL_INDICATOR;
+
+    while (p < len) {
+        if (BIT(prev) & SET_WORDRUN_PREV) {
+            /* Fast path: ASCII letters, digits and '_' inside a word. */
+            size_t q = p;
+            unsigned f, run = 0;
+            while (q < len && (f = tti_wb_ascii_run[s[q]]) != 0) {
+                run |= f;
+                q++;
+            }
+            if (q > p) {
+                acc |= run & SEEN_LETTER;
+                if (run & TTI_WB_RUN_DIGIT)
+                    digit = SEEN_DIGIT;
+                prev2 = q - p >= 2 ? tti_wb_stage2[s[q - 2]] & TTI_WB_PROP_MASK : prev;
+                prev = raw = tti_wb_stage2[s[q - 1]] & TTI_WB_PROP_MASK;
+                ri_odd = 0;
+                p = q;
+                if (p >= len)
+                    break;
+            }
+        }
+
+        c = class_at(s + p, len - p, &n);
+        unsigned cur = c & TTI_WB_PROP_MASK;
+        if (BIT(cur) & SET_NEWLINE)                                 /* WB3b */
+            break;
+        if ((raw == TTI_WB_ZWJ && (c & TTI_WB_EXTPICT)) ||         /* WB3c */
+            (raw == TTI_WB_WSEGSPACE && cur == TTI_WB_WSEGSPACE)) { /* WB3d */
+            /* joined; falls through to the bookkeeping below */
+        } else if (BIT(cur) & SET_IGNORED) {                          /* WB4 */
+            acc |= c;
+            raw = cur;
+            p += n;
+            continue;
+        } else if (!joins(prev2, prev, cur, ri_odd, s, len, p + n)) {
+            break;
+        }
+        acc |= c;
+        if (cur == TTI_WB_NUMERIC)
+            digit = SEEN_DIGIT;
+        ri_odd = cur == TTI_WB_REGIONAL_INDICATOR ? !ri_odd : 0;
+        prev2 = prev;
+        prev = raw = cur;
+        p += n;
+    }
+    *seen = (acc & (SEEN_LETTER | SEEN_TERMINAL)) | digit;
+    return p;
+}
+
+size_t tt_wordbreak_next(const char *text, size_t len, size_t pos)
+{
+    unsigned seen;
+    if (!text || pos >= len)
+        return len;
+    return segment_end((const unsigned char *)text, len, pos, &seen);
+}
+
+void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
+{
+    t->text = text;
+    t->len = text ? len : 0;
+    t->pos = 0;
+    t->at_sentence_start = 1;
+    t->overlong = 0;
+}
+
+/* The length of a hyphen (U+002D, U+2010 HYPHEN, U+2011 NON-BREAKING
+ * HYPHEN) at s, or 0. */
+static size_t hyphen_len(const unsigned char *s, size_t n)
+{
+    if (s[0] == '-')
+        return 1;
+    if (n >= 3 && s[0] == 0xE2 && s[1] == 0x80 && (s[2] == 0x90 || s[2] == 0x91))
+        return 3;
+    return 0;
+}
+
+#define SEEN_TOKEN (SEEN_LETTER | SEEN_DIGIT)
+
+int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
+{
+    const unsigned char *s = (const unsigned char *)t->text;
+    size_t len = t->len, p = t->pos;
+
+    while (p < len) {
+        unsigned b = s[p];
+        if (b < 0x80 && !tti_wb_ascii_run[b] && b != '\r') {
+            /* Fast path: ASCII spaces and punctuation. An ASCII character
+             * that is not a letter, digit, '_' or CR starts no rule that
+             * joins it to the next character, except WB3d (a space run) and
+             * WB4 (Extend/Format/ZWJ, never ASCII); so, before an ASCII
+             * byte or the end, it is a segment alone. */
+            size_t q = p + 1;
+            if (b == ' ')
+                while (q < len && s[q] == ' ')
+                    q++;
+            if (q == len || s[q] < 0x80) {
+                if (tti_wb_stage2[b] & TTI_WB_TERMINAL)
+                    t->at_sentence_start = 1;
+                p = q;
+                continue;
+            }
+        }
+        unsigned seen;
+        size_t end = segment_end(s, len, p, &seen);
+        if (!(seen & SEEN_TOKEN)) {
+            /* Punctuation, spaces, symbols: only a sentence end matters.
+             * Terminals inside a token segment ("3.5", "e.g") are not
+             * sentence ends, which is why only these segments count. */
+            if (seen & SEEN_TERMINAL)
+                t->at_sentence_start = 1;
+            p = end;
+            continue;
+        }
+
+        size_t start = p;
+        unsigned kinds = seen;
+        int ends_sentence = 0;
+        p = end;
+        /* Hyphen joining: token, one hyphen, token. A token segment ends
+         * before any hyphen (Other breaks from everything, WB999), so the
+         * hyphen always starts a segment. If marks are attached to it (WB4),
+         * the segment after the hyphen starts with a mark, which breaks from
+         * whatever follows (WB999) and holds no letter or digit: such a
+         * hyphen never joins, as the contract wants. A follower that is not
+         * a token is consumed here too (its only effect is a sentence end),
+         * so nothing is walked twice. */
+        while (p < len) {
+            size_t h = hyphen_len(s + p, len - p);
+            unsigned fseen;
+            if (!h || p + h >= len)
+                break;
+            size_t fend = segment_end(s, len, p + h, &fseen);
+            if (!(fseen & SEEN_TOKEN)) {
+                ends_sentence = (fseen & SEEN_TERMINAL) != 0;
+                t->pos = fend;
+                goto emit;
+            }
+            kinds |= fseen;
+            p = fend;
+        }
+        t->pos = p;
+    emit:
+        if (p - start > TT_LIMIT_TOKEN_BYTES) {
+            /* Skipped, and the pending sentence start waits for the next
+             * token that is kept, so sentence counts do not drop. */
+            t->overlong++;
+            if (ends_sentence)
+                t->at_sentence_start = 1;
+            p = t->pos;
+            continue;
+        }
+        tok->off = start;
+        tok->len = p - start;
+        tok->kind = (kinds & SEEN_LETTER) ? TT_TOKEN_WORD : TT_TOKEN_NUMBER;
+        tok->sentence_start = t->at_sentence_start;
+        t->at_sentence_start = ends_sentence;
+        return 1;
+    }
+    t->pos = len;
+    return 0;
+}
