@@ -23,8 +23,12 @@ void tt_normalizer_init(tt_normalizer *n);
 void tt_normalizer_release(tt_normalizer *n);
 
 /* Writes the normalized form of tok (valid UTF-8) into out, which is reset
- * first; out->len may be 0 when nothing is left (a lone apostrophe).
- * TT_ENOMEM on allocation failure. */
+ * first; out->len may be 0 when nothing is left (a lone apostrophe). Dropping
+ * a final "'s" also turns "it's" into "it" (as Porter2's step 0 does).
+ * Should a caller pass invalid UTF-8 anyway, each bad byte becomes U+FFFD.
+ * tok must not point into out. One normalizer per thread; it keeps its
+ * scratch memory between calls, so the steady state allocates nothing.
+ * TT_ENOMEM on allocation failure, TT_ELIMIT when out's cap is reached. */
 tt_status tt_normalize(tt_normalizer *n, const char *tok, size_t len, tt_buf *out);
 
 /* Number of code points in a UTF-8 string (for --min-length). */
