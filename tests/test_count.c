@@ -1,0 +1,210 @@
+/* Tests of counting one document (src/count.c): unigrams, n-grams that
+ * never cross a sentence or block and never start or end with a stop-word,
+ * numbers left out or kept, minimum length, stemming, and count classes. */
+#include "tt_test.h"
+
+#include "termtide/alloc.h"
+#include "termtide/count.h"
+#include "termtide/extract.h"
+#include "termtide/filter.h"
+
+static tt_termtable *stop_set(void)
+{
+    tt_termtable *s = tt_termtable_new();
+    const char *list = "# test list\nthe\nof\nand\na\nin\n";
+    tt_error err;
+    tt_error_init(&err);
+    assert_int_equal(tt_stopwords_load_text(s, list, strlen(list), "test", &err), TT_OK);
+    return s;
+}
+
+static tt_termtable *count(const char *text, tt_count_options *o, tt_doc_stats *st)
+{
+    tt_counter *c = tt_counter_new(o);
+    assert_non_null(c);
+    tt_termtable *t = tt_termtable_new();
+    memset(st, 0, sizeof *st);
+    assert_int_equal(tt_counter_count_text(c, text, strlen(text), t, st), TT_OK);
+    tt_counter_free(c);
+    return t;
+}
+
+#define GET(t, s) tt_termtable_get((t), (s), strlen(s))
+
+static void test_unigrams(void **state)
+{
+    (void)state;
+    tt_count_options o;
+    tt_count_options_init(&o);
+    tt_termtable *stop = stop_set();
+    o.stopwords = stop;
+    tt_doc_stats st;
+    tt_termtable *t = count("The company's off-balance-sheet debt rose 3.5% to $1,200 in 2025. "
+                            "The Company’s debt of the COMPANY fell.",
+                            &o, &st);
+    assert_int_equal(GET(t, "company"), 3);
+    assert_int_equal(GET(t, "off-balance-sheet"), 1);
+    assert_int_equal(GET(t, "debt"), 2);
+    assert_int_equal(GET(t, "the"), 0);
+    assert_int_equal(GET(t, "2025"), 0);
+    assert_int_equal(GET(t, "3.5"), 0);
+    assert_int_equal(st.numbers, 3);
+    assert_int_equal(st.stopwords, 5); /* The, in, The, of, the */
+    assert_int_equal(st.words_read, 17);
+    assert_int_equal(st.terms_kept, tt_termtable_total(t));
+    assert_int_equal(st.sentences, 2);
+    tt_termtable_free(t);
+
+    o.keep_numbers = 1;
+    t = count("Backlog 1,200 units; 3.5 percent.", &o, &st);
+    assert_int_equal(GET(t, "1,200"), 1);
+    assert_int_equal(GET(t, "3.5"), 1);
+    tt_termtable_free(t);
+    tt_termtable_free(stop);
+}
+
+static void test_ngrams(void **state)
+{
+    (void)state;
+    tt_count_options o;
+    tt_count_options_init(&o);
+    tt_termtable *stop = stop_set();
+    o.stopwords = stop;
+    o.ngram_min = o.ngram_max = 2;
+    tt_doc_stats st;
+    tt_termtable *t = count("The supply chain held. Supply chain costs of the plant rose in "
+                            "March 2025 revenue grew.",
+                            &o, &st);
+    assert_int_equal(GET(t, "supply chain"), 2);
+    assert_int_equal(GET(t, "chain costs"), 1);
+    assert_int_equal(GET(t, "chain held"), 1);
+    assert_int_equal(GET(t, "held supply"), 0);   /* across a sentence end */
+    assert_int_equal(GET(t, "the supply"), 0);    /* starts with a stop-word */
+    assert_int_equal(GET(t, "costs of"), 0);      /* ends with a stop-word */
+    assert_int_equal(GET(t, "march revenue"), 0); /* a left-out number breaks it */
+    assert_int_equal(GET(t, "revenue grew"), 1);
+    tt_termtable_free(t);
+
+    o.ngram_min = o.ngram_max = 3;
+    t = count("Cost of revenue rose; the cost of the revenue fell.", &o, &st);
+    assert_int_equal(GET(t, "cost of revenue"), 1); /* stop-word inside is kept */
+    assert_int_equal(GET(t, "of the revenue"), 0);
+    tt_termtable_free(t);
+
+    o.ngram_min = 1;
+    o.ngram_max = 3;
+    t = count("going concern doubt", &o, &st);
+    assert_int_equal(GET(t, "going"), 1);
+    assert_int_equal(GET(t, "going concern"), 1);
+    assert_int_equal(GET(t, "going concern doubt"), 1);
+    assert_int_equal(GET(t, "concern doubt"), 1);
+    assert_int_equal(tt_termtable_total(t), 6);
+    tt_termtable_free(t);
+    tt_termtable_free(stop);
+}
+
+static void test_blocks_are_boundaries(void **state)
+{
+    (void)state;
+    tt_blocks b;
+    tt_blocks_init(&b);
+    assert_int_equal(tt_blocks_add(&b, TT_BLOCK_CELL, "net", 3, 0), TT_OK);
+    assert_int_equal(tt_blocks_add(&b, TT_BLOCK_CELL, "loss", 4, 10), TT_OK);
+    tt_count_options o;
+    tt_count_options_init(&o);
+    o.ngram_min = 1;
+    o.ngram_max = 2;
+    tt_counter *c = tt_counter_new(&o);
+    tt_termtable *t = tt_termtable_new();
+    tt_doc_stats st;
+    memset(&st, 0, sizeof st);
+    assert_int_equal(tt_counter_count(c, &b, t, &st), TT_OK);
+    assert_int_equal(GET(t, "net"), 1);
+    assert_int_equal(GET(t, "loss"), 1);
+    assert_int_equal(GET(t, "net loss"), 0);
+    assert_int_equal(GET(t, "netloss"), 0);
+    tt_termtable_free(t);
+    tt_counter_free(c);
+    tt_blocks_release(&b);
+}
+
+static void test_min_length_and_stem(void **state)
+{
+    (void)state;
+    tt_count_options o;
+    tt_count_options_init(&o);
+    o.min_length = 3;
+    tt_doc_stats st;
+    tt_termtable *t = count("An ox ran to the shore; é é ångström", &o, &st);
+    assert_int_equal(GET(t, "ox"), 0);
+    assert_int_equal(GET(t, "ran"), 1);
+    assert_int_equal(GET(t, "é"), 0);
+    assert_int_equal(GET(t, "ångström"), 1);
+    assert_int_equal(st.short_words, 5);
+    tt_termtable_free(t);
+
+    tt_count_options_init(&o);
+    o.stem = 1;
+    /* Porter2 stems as listed in the Snowball English vocabulary
+     * (snowball-data voc.txt/output.txt): generously→generous,
+     * settlements→settlement, settlement→settlement, liabilities→liabil. */
+    t = count("settlements settlement liabilities generously", &o, &st);
+    assert_int_equal(GET(t, "settlement"), 2);
+    assert_int_equal(GET(t, "liabil"), 1);
+    assert_int_equal(GET(t, "generous"), 1);
+    tt_termtable_free(t);
+}
+
+static void test_classes(void **state)
+{
+    (void)state;
+    /* counts 1,1,1,2,4,5,9,10,19,20,120 */
+    uint64_t counts[] = { 120, 20, 19, 10, 9, 5, 4, 2, 1, 1, 1 };
+    tt_term_entry e[11];
+    for (int i = 0; i < 11; i++) {
+        e[i].term = "x";
+        e[i].len = 1;
+        e[i].count = counts[i];
+    }
+    tt_count_class c[16];
+    size_t k = tt_count_classes(e, 11, c, 16);
+    /* classes 1 | 2-4 | 5-9 | 10-19 | 20-49 | 50-99 | 100-199 */
+    assert_int_equal(k, 7);
+    uint64_t want_terms[] = { 3, 2, 2, 2, 1, 0, 1 };
+    uint64_t want_lower[] = { 1, 2, 5, 10, 20, 50, 100 };
+    for (size_t i = 0; i < k; i++) {
+        assert_int_equal(c[i].lower, want_lower[i]);
+        assert_int_equal(c[i].terms, want_terms[i]);
+    }
+    /* a value on an edge goes to the higher class: 2 in 2-4, 5 in 5-9,
+     * 10 in 10-19, 20 in 20-49 (common practice) */
+    assert_int_equal(c[1].occurrences, 6);
+    assert_int_equal(c[2].occurrences, 14);
+    assert_int_equal(c[3].occurrences, 29);
+    assert_int_equal(c[4].occurrences, 20);
+}
+
+static void test_bad_options(void **state)
+{
+    (void)state;
+    tt_count_options o;
+    tt_count_options_init(&o);
+    o.ngram_max = 4;
+    assert_null(tt_counter_new(&o));
+    o.ngram_max = 1;
+    o.ngram_min = 2;
+    assert_null(tt_counter_new(&o));
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_unigrams),
+        cmocka_unit_test(test_ngrams),
+        cmocka_unit_test(test_blocks_are_boundaries),
+        cmocka_unit_test(test_min_length_and_stem),
+        cmocka_unit_test(test_classes),
+        cmocka_unit_test(test_bad_options),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}

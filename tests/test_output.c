@@ -1,0 +1,163 @@
+/* Tests of table output (src/output.c): TSV escaping, CSV per RFC 4180 with
+ * formula neutralisation, JSON Lines per RFC 8259, locale-free numbers, and
+ * atomic files. The CSV output is read back with Python's csv module and the
+ * JSON Lines with Python's json module (reference parsers, standard library). */
+#include <locale.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "tt_test.h"
+
+#include "termtide/alloc.h"
+#include "termtide/output.h"
+
+static void test_fixed(void **state)
+{
+    (void)state;
+    char b[40];
+    tt_format_fixed(0.5, 6, b);
+    assert_string_equal(b, "0.500000");
+    tt_format_fixed(1.0, 6, b);
+    assert_string_equal(b, "1.000000");
+    tt_format_fixed(2.0 / 3.0, 4, b);
+    assert_string_equal(b, "0.6667");
+    tt_format_fixed(-0.00004, 4, b);
+    assert_string_equal(b, "0.0000"); /* rounds to zero: no "-0.0000" */
+    tt_format_fixed(-12.345, 2, b);
+    assert_string_equal(b, "-12.35");
+    tt_format_fixed(1234567.0, 0, b);
+    assert_string_equal(b, "1234567");
+    tt_format_fixed(0.000123, 6, b);
+    assert_string_equal(b, "0.000123");
+    /* a locale with a decimal comma must not leak in */
+    if (setlocale(LC_NUMERIC, "de_DE.UTF-8")) {
+        tt_format_fixed(0.25, 2, b);
+        assert_string_equal(b, "0.25");
+        setlocale(LC_NUMERIC, "C");
+    }
+}
+
+static const char *const cols[] = { "document", "term", "count" };
+
+static void write_rows(tt_format f, tt_buf *out)
+{
+    tt_table_writer w;
+    assert_int_equal(tt_table_begin(&w, f, out, cols, 3, 1), TT_OK);
+    const char *cells[] = { "plain", "=SUM(A1:A2)", "a,b", "say \"hi\"", "+1", "-x", "@cmd",
+                            "\ttab", "line\nbreak", "back\\slash", "caf\xc3\xa9" };
+    for (size_t i = 0; i < sizeof cells / sizeof cells[0]; i++) {
+        assert_int_equal(tt_table_cstr(&w, "doc.htm"), TT_OK);
+        assert_int_equal(tt_table_cstr(&w, cells[i]), TT_OK);
+        assert_int_equal(tt_table_u64(&w, i), TT_OK);
+        assert_int_equal(tt_table_end_row(&w), TT_OK);
+    }
+}
+
+static void run_python(const char *script, const char *data, char *result, size_t size)
+{
+    char in[] = "/tmp/tt_output_XXXXXX";
+    int fd = mkstemp(in);
+    assert_true(fd >= 0);
+    assert_int_equal(write(fd, data, strlen(data)), (ssize_t)strlen(data));
+    close(fd);
+    char cmd[4096];
+    snprintf(cmd, sizeof cmd, "%s -c '%s' %s", tt_test_python(), script, in);
+    FILE *p = popen(cmd, "r");
+    assert_non_null(p);
+    size_t n = fread(result, 1, size - 1, p);
+    result[n] = '\0';
+    assert_int_equal(pclose(p), 0);
+    unlink(in);
+}
+
+static void test_csv_roundtrip(void **state)
+{
+    (void)state;
+    tt_buf out;
+    tt_buf_init(&out, 0);
+    write_rows(TT_FORMAT_CSV, &out);
+    char res[8192];
+    /* Python's csv module (RFC 4180 dialect "excel") reads back every cell. */
+    run_python("import csv,sys\n"
+               "rows=list(csv.reader(open(sys.argv[1],newline=\"\",encoding=\"utf-8\")))\n"
+               "print(len(rows)); [print(repr(r[1])) for r in rows[1:]]",
+               out.data, res, sizeof res);
+    const char *want = "12\n'plain'\n\"'=SUM(A1:A2)\"\n'a,b'\n'say \"hi\"'\n\"'+1\"\n\"'-x\"\n"
+                       "\"'@cmd\"\n\"'\\ttab\"\n'line\\nbreak'\n'back\\\\slash'\n'café'\n";
+    assert_string_equal(res, want);
+    tt_buf_release(&out);
+}
+
+static void test_jsonl_roundtrip(void **state)
+{
+    (void)state;
+    tt_buf out;
+    tt_buf_init(&out, 0);
+    write_rows(TT_FORMAT_JSONL, &out);
+    char res[8192];
+    /* Python's json module (RFC 8259) parses every line. */
+    run_python("import json,sys\n"
+               "for l in open(sys.argv[1],encoding=\"utf-8\"):\n"
+               "  o=json.loads(l); print(o[\"term\"]+\"|\"+str(o[\"count\"]))",
+               out.data, res, sizeof res);
+    assert_non_null(strstr(res, "=SUM(A1:A2)|1\n"));
+    assert_non_null(strstr(res, "say \"hi\"|3\n"));
+    assert_non_null(strstr(res, "line\nbreak|8\n"));
+    assert_non_null(strstr(res, "café|10\n"));
+    tt_buf_release(&out);
+}
+
+static void test_tsv_escapes(void **state)
+{
+    (void)state;
+    tt_buf out;
+    tt_buf_init(&out, 0);
+    write_rows(TT_FORMAT_TSV, &out);
+    assert_non_null(strstr(out.data, "document\tterm\tcount\n"));
+    assert_non_null(strstr(out.data, "doc.htm\t\\ttab\t7\n"));
+    assert_non_null(strstr(out.data, "doc.htm\tline\\nbreak\t8\n"));
+    assert_non_null(strstr(out.data, "doc.htm\tback\\\\slash\t9\n"));
+    tt_buf_release(&out);
+}
+
+static void test_atomic_file(void **state)
+{
+    (void)state;
+    char dir[] = "/tmp/tt_atomic_XXXXXX";
+    assert_non_null(mkdtemp(dir));
+    char path[256];
+    snprintf(path, sizeof path, "%s/out.tsv", dir);
+    tt_error err;
+    tt_error_init(&err);
+    tt_outfile f;
+    /* aborted: nothing appears */
+    assert_int_equal(tt_outfile_open(&f, path, &err), TT_OK);
+    assert_int_equal(tt_outfile_write(&f, "half", 4, &err), TT_OK);
+    tt_outfile_abort(&f);
+    struct stat sb;
+    assert_int_not_equal(stat(path, &sb), 0);
+    /* committed: the whole content appears at once */
+    assert_int_equal(tt_outfile_open(&f, path, &err), TT_OK);
+    assert_int_equal(tt_outfile_write(&f, "whole\n", 6, &err), TT_OK);
+    assert_int_not_equal(stat(path, &sb), 0);
+    assert_int_equal(tt_outfile_commit(&f, &err), TT_OK);
+    assert_int_equal(stat(path, &sb), 0);
+    assert_int_equal(sb.st_size, 6);
+    unlink(path);
+    /* a directory that does not exist: a clear error naming the file */
+    assert_int_equal(tt_outfile_open(&f, "/nonexistent-dir/x.tsv", &err), TT_EIO);
+    assert_string_equal(err.file, "/nonexistent-dir/x.tsv");
+    rmdir(dir);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_fixed),
+        cmocka_unit_test(test_csv_roundtrip),
+        cmocka_unit_test(test_jsonl_roundtrip),
+        cmocka_unit_test(test_tsv_escapes),
+        cmocka_unit_test(test_atomic_file),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}

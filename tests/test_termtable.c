@@ -1,0 +1,143 @@
+/* Tests of the term table (src/termtable.c): counting, growth, sorting,
+ * merging, hostile keys, and out-of-memory reported as TT_ENOMEM. */
+#include "tt_test.h"
+
+#include "termtide/alloc.h"
+#include "termtide/termtable.h"
+
+static void test_add_get_sorted(void **state)
+{
+    (void)state;
+    tt_termtable *t = tt_termtable_new();
+    assert_non_null(t);
+    assert_int_equal(tt_termtable_add(t, "loss", 4, 3), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "gain", 4, 3), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "revenue", 7, 5), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "loss", 4, 1), TT_OK);
+    assert_int_equal(tt_termtable_get(t, "loss", 4), 4);
+    assert_int_equal(tt_termtable_get(t, "los", 3), 0);
+    assert_int_equal(tt_termtable_distinct(t), 3);
+    assert_int_equal(tt_termtable_total(t), 12);
+    tt_term_entry *e;
+    size_t n;
+    assert_int_equal(tt_termtable_sorted(t, &e, &n), TT_OK);
+    assert_int_equal(n, 3);
+    /* count descending, then term bytewise ascending */
+    assert_string_equal(e[0].term, "revenue");
+    assert_string_equal(e[1].term, "loss");
+    assert_string_equal(e[2].term, "gain");
+    tt_free(e);
+    tt_termtable_free(t);
+}
+
+static void test_ties_sorted_by_term(void **state)
+{
+    (void)state;
+    tt_termtable *t = tt_termtable_new();
+    const char *words[] = { "zeta", "alpha", "mu", "beta", "alphabet", "Alpha" };
+    for (size_t i = 0; i < 6; i++)
+        assert_int_equal(tt_termtable_add(t, words[i], strlen(words[i]), 2), TT_OK);
+    tt_term_entry *e;
+    size_t n;
+    assert_int_equal(tt_termtable_sorted(t, &e, &n), TT_OK);
+    const char *want[] = { "Alpha", "alpha", "alphabet", "beta", "mu", "zeta" };
+    for (size_t i = 0; i < 6; i++)
+        assert_string_equal(e[i].term, want[i]);
+    tt_free(e);
+    tt_termtable_free(t);
+}
+
+/* Many distinct terms force several growths; every count must survive. */
+static void test_growth_and_merge(void **state)
+{
+    (void)state;
+    tt_termtable *a = tt_termtable_new(), *b = tt_termtable_new();
+    char w[32];
+    for (int i = 0; i < 200000; i++) {
+        int n = snprintf(w, sizeof w, "w%d", i);
+        assert_int_equal(tt_termtable_add(a, w, (size_t)n, (uint64_t)(i % 7 + 1)), TT_OK);
+        if (i % 2)
+            assert_int_equal(tt_termtable_add(b, w, (size_t)n, 1), TT_OK);
+    }
+    assert_int_equal(tt_termtable_distinct(a), 200000);
+    assert_int_equal(tt_termtable_merge(a, b), TT_OK);
+    for (int i = 0; i < 200000; i += 997) {
+        int n = snprintf(w, sizeof w, "w%d", i);
+        assert_int_equal(tt_termtable_get(a, w, (size_t)n), (uint64_t)(i % 7 + 1 + (i % 2)));
+    }
+    tt_termtable_reset(a);
+    assert_int_equal(tt_termtable_distinct(a), 0);
+    assert_int_equal(tt_termtable_get(a, "w1", 2), 0);
+    assert_int_equal(tt_termtable_add(a, "again", 5, 1), TT_OK);
+    assert_int_equal(tt_termtable_get(a, "again", 5), 1);
+    tt_termtable_free(a);
+    tt_termtable_free(b);
+}
+
+/* Terms that differ only after 8-byte boundaries, embedded high bytes and
+ * a long term crossing the arena chunk size must stay distinct. */
+static void test_awkward_keys(void **state)
+{
+    (void)state;
+    tt_termtable *t = tt_termtable_new();
+    char big[300000];
+    memset(big, 'x', sizeof big);
+    assert_int_equal(tt_termtable_add(t, big, sizeof big, 1), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "abcdefgh1", 9, 1), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "abcdefgh2", 9, 1), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "\xc3\xa9t\xc3\xa9", 5, 1), TT_OK);
+    assert_int_equal(tt_termtable_add(t, "", 0, 1), TT_OK);
+    assert_int_equal(tt_termtable_distinct(t), 5);
+    assert_int_equal(tt_termtable_get(t, big, sizeof big), 1);
+    assert_int_equal(tt_termtable_get(t, "abcdefgh2", 9), 1);
+    tt_termtable_free(t);
+}
+
+/* Out-of-memory: fail the k-th allocation for every k; each run must either
+ * succeed or report TT_ENOMEM, never crash (checked under ASan too). */
+static int fail_at, calls;
+static void *failing_malloc(size_t n) { return ++calls == fail_at ? NULL : malloc(n); }
+static void *failing_realloc(void *p, size_t n) { return ++calls == fail_at ? NULL : realloc(p, n); }
+
+static void test_out_of_memory(void **state)
+{
+    (void)state;
+    tt_allocator a = { failing_malloc, failing_realloc, free };
+    int saw_enomem = 0;
+    for (fail_at = 1; fail_at < 60; fail_at++) {
+        calls = 0;
+        tt_set_allocator(&a);
+        tt_termtable *t = tt_termtable_new();
+        tt_status st = t ? TT_OK : TT_ENOMEM;
+        char w[16];
+        for (int i = 0; i < 3000 && st == TT_OK; i++) {
+            int n = snprintf(w, sizeof w, "t%d", i);
+            st = tt_termtable_add(t, w, (size_t)n, 1);
+        }
+        if (st == TT_OK && t) {
+            tt_term_entry *e;
+            size_t n;
+            st = tt_termtable_sorted(t, &e, &n);
+            if (st == TT_OK)
+                tt_free(e);
+        }
+        assert_true(st == TT_OK || st == TT_ENOMEM);
+        if (st == TT_ENOMEM)
+            saw_enomem = 1;
+        tt_termtable_free(t);
+        tt_set_allocator(NULL);
+    }
+    assert_true(saw_enomem);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_add_get_sorted),
+        cmocka_unit_test(test_ties_sorted_by_term),
+        cmocka_unit_test(test_growth_and_merge),
+        cmocka_unit_test(test_awkward_keys),
+        cmocka_unit_test(test_out_of_memory),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}
