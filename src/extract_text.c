@@ -1,0 +1,167 @@
+/* termtide — the extract stage for plain text: paragraphs of clean text.
+ *
+ * One pass over the bytes, O(n), no allocation per word. Each byte is
+ * classified through a 256-entry table (locale-free): ordinary, horizontal
+ * white space, LF, CR, or 0xC2 (the lead byte of U+00A0 NO-BREAK SPACE, which
+ * counts as white space when followed by 0xA0). Runs of ordinary bytes, with
+ * the single spaces between words, are copied in one memcpy (the ASCII fast
+ * path); every other white-space run is collapsed while counting the line
+ * breaks in it:
+ *   - two or more line breaks (a blank line, even one holding spaces or
+ *     NBSP) end the paragraph;
+ *   - one line break becomes one space, except after a word hyphenated at
+ *     the line end: when the paragraph so far ends in a letter and '-', and
+ *     the next line starts with a letter, the lines are joined with no space
+ *     and the hyphen kept ("off-\nbalance" -> "off-balance"). Letters are
+ *     ASCII letters or code points of Unicode general category L*
+ *     (utf8proc), so "é-\nx" joins too.
+ * LF, CRLF and a lone CR each count as one line break. A paragraph's src_off
+ * is the offset of its first non-space byte plus src_base.
+ *
+ * The current paragraph is built in a scratch buffer and then appended to
+ * the block list (one memcpy per paragraph), which keeps tt_blocks' layout
+ * private to blocks.c. */
+#include <stdint.h>
+
+#include <utf8proc.h>
+
+#include "termtide/extract.h"
+#include "tt_internal.h"
+
+enum { C_TEXT = 0, C_SPACE, C_LF, C_CR, C_C2 };
+
+/* ASCII white space as in tti_is_ascii_space; everything else is text
+ * unless it starts an NBSP. */
+static const unsigned char byte_class[256] = {
+    ['\t'] = C_SPACE, ['\v'] = C_SPACE, ['\f'] = C_SPACE, [' '] = C_SPACE,
+    ['\n'] = C_LF,    ['\r'] = C_CR,    [0xC2] = C_C2,
+};
+
+static int is_letter(uint32_t cp)
+{
+    if (cp < 0x80)
+        return tti_is_ascii_alpha((int)cp);
+    utf8proc_category_t cat = utf8proc_category((utf8proc_int32_t)cp);
+    return cat >= UTF8PROC_CATEGORY_LU && cat <= UTF8PROC_CATEGORY_LO;
+}
+
+/* The paragraph so far ends in "<letter>-". */
+static int ends_in_letter_hyphen(const tt_buf *para)
+{
+    const unsigned char *d = (const unsigned char *)para->data;
+    size_t n = para->len;
+    if (n < 2 || d[n - 1] != '-')
+        return 0;
+    size_t end = n - 1, p = end - 1; /* p: last byte of the letter */
+    if (d[p] < 0x80)
+        return tti_is_ascii_alpha(d[p]);
+    /* Walk back to the lead byte of a multi-byte sequence (at most 3
+     * continuation bytes). */
+    for (int k = 0; k < 3 && p > 0 && (d[p] & 0xC0) == 0x80; k++)
+        p--;
+    uint32_t cp;
+    size_t l = tti_utf8_decode(d + p, end - p, &cp);
+    return p + l == end && is_letter(cp);
+}
+
+static int starts_with_letter(const unsigned char *s, size_t n)
+{
+    uint32_t cp;
+    tti_utf8_decode(s, n, &cp);
+    return is_letter(cp);
+}
+
+tt_status tt_extract_text(const char *text, size_t len, long long src_base,
+                          tt_blocks *out, const char *name, tt_error *err)
+{
+    const unsigned char *s = (const unsigned char *)text;
+    tt_buf para;
+    tt_buf_init(&para, 0);
+    tt_status st = TT_OK;
+    long long para_src = -1;
+    size_t breaks = 0; /* line breaks in the current white-space run */
+    int space = 0;     /* any white space since the last word */
+    size_t i = 0;
+
+    tt_blocks_reset(out);
+    while (i < len) {
+        unsigned c = byte_class[s[i]];
+        if (c == C_SPACE) {
+            space = 1;
+            i++;
+            continue;
+        }
+        if (c == C_LF) {
+            space = 1;
+            breaks++;
+            i++;
+            continue;
+        }
+        if (c == C_CR) {
+            space = 1;
+            breaks++;
+            i++;
+            if (i < len && s[i] == '\n')
+                i++;
+            continue;
+        }
+        if (c == C_C2 && i + 1 < len && s[i + 1] == 0xA0) {
+            space = 1;
+            i += 2;
+            continue;
+        }
+
+        /* A word: first settle the white space before it. */
+        if (breaks >= 2 && para.len) {
+            st = tt_blocks_add(out, TT_BLOCK_PARAGRAPH, para.data, para.len, para_src);
+            if (st)
+                goto fail;
+            tt_buf_reset(&para);
+        }
+        if (para.len == 0) {
+            para_src = src_base + (long long)i;
+        } else if (space &&
+                   !(breaks == 1 && ends_in_letter_hyphen(&para) &&
+                     starts_with_letter(s + i, len - i))) {
+            st = tt_buf_putc(&para, ' ');
+            if (st)
+                goto fail;
+        }
+        space = 0;
+        breaks = 0;
+
+        /* The run: ordinary bytes, plus single spaces between words, which
+         * are already normalized and so copied as they are. */
+        size_t j = i + 1;
+        while (j < len) {
+            unsigned k = byte_class[s[j]];
+            if (k == C_TEXT)
+                j++;
+            else if (k == C_SPACE && s[j] == ' ' && j + 1 < len &&
+                     byte_class[s[j + 1]] == C_TEXT)
+                j += 2;
+            else if (k == C_C2 && !(j + 1 < len && s[j + 1] == 0xA0))
+                j++;
+            else
+                break;
+        }
+        st = tt_buf_append(&para, s + i, j - i);
+        if (st)
+            goto fail;
+        i = j;
+    }
+    st = tt_blocks_add(out, TT_BLOCK_PARAGRAPH, para.data, para.len, para_src);
+    if (st)
+        goto fail;
+    tt_buf_release(&para);
+    return TT_OK;
+
+fail:
+    tt_buf_release(&para);
+    tt_blocks_reset(out);
+    if (st == TT_ENOMEM)
+        return tt_error_set(err, st, name, src_base + (long long)i,
+                            "out of memory while splitting text into paragraphs");
+    return tt_error_set(err, st, name, src_base + (long long)i,
+                        "extracted text exceeds its size limit");
+}
