@@ -20,11 +20,18 @@ typedef enum tt_doc_kind {
 
 const char *tt_doc_kind_name(tt_doc_kind kind); /* "text", "html", "wrapper" */
 
-/* Detects the kind from content: a wrapper starts (after white space and an
- * optional <SEC-DOCUMENT>/<SEC-HEADER>/<IMS-HEADER> preamble) with header
- * lines or has a <DOCUMENT> line holding a <TYPE> line; HTML has a doctype,
- * <html, <body, <div, <p, <table or an XML prolog followed by <html within
- * its first 4 KiB (case-insensitive); else text. */
+/* Detects the kind from content, looking at a bounded prefix only
+ * (case-insensitive throughout):
+ *  - a wrapper starts (after white space) with <SEC-DOCUMENT>, <SEC-HEADER>,
+ *    <IMS-DOCUMENT>, <IMS-HEADER>, "ACCESSION NUMBER:" or "CONFORMED
+ *    SUBMISSION TYPE:", or has, within its first 64 KiB, a <DOCUMENT> line
+ *    whose next non-blank line is a <TYPE> line;
+ *  - HTML has, within the first 4 KiB after leading white space, a tag
+ *    <!DOCTYPE html, <html, <head, <body, <div or <p (the name followed by
+ *    '>', '/' or white space, so <PAGE> and <pre> do not count; an XML
+ *    prolog before <html is covered), or <table together with <tr or <td
+ *    (plain-text filings mark tables with <TABLE>, <S>, <C> but never <TR>);
+ *  - else text. */
 tt_doc_kind tt_detect_kind(const char *text, size_t len);
 
 /* One inner document of a submission wrapper. */
@@ -49,9 +56,18 @@ typedef struct tt_wrapper {
 void tt_wrapper_init(tt_wrapper *w);
 void tt_wrapper_release(tt_wrapper *w);
 
-/* Splits a decoded wrapper into parts (TT_LIMIT_WRAPPER_PARTS at most).
- * An unterminated <DOCUMENT> or <TEXT> runs to the end of the input and is
- * kept. TT_EPARSE when no <DOCUMENT> is found. */
+/* Splits a decoded wrapper into parts (TT_LIMIT_WRAPPER_PARTS at most,
+ * else TT_ELIMIT). out is emptied first and reused. Tags are matched at the
+ * start of a line after blanks, without regard to case; CRLF is accepted.
+ * Header values are the first of each key before the first <DOCUMENT>. A
+ * body starts after the <TEXT> line (or right after the tag when text
+ * follows it on the same line) and ends where a line starts with </TEXT> or
+ * just before a </TEXT> that ends a line; nothing else ends it. An
+ * unterminated <DOCUMENT> or <TEXT> runs to the end of the input and is
+ * kept; a part without <TEXT> has an empty body. A body whose first
+ * non-blank line (after an optional <PDF> line) is "begin MODE NAME" (octal
+ * MODE) or "begin-base64 MODE NAME" is uuencoded. TT_EPARSE when no
+ * <DOCUMENT> is found. */
 tt_status tt_wrapper_split(const char *text, size_t len, tt_wrapper *out,
                            const char *name, tt_error *err);
 
@@ -83,13 +99,22 @@ typedef struct tt_document {
     const char *entity;    /* wrapper header values, "" otherwise */
     const char *period;
     const char *form;
-    const char *raw;       /* the decoded text of this document */
+    const char *raw;       /* the decoded text of this document (for a part,
+                              its <TEXT> body without an outer <XBRL> or
+                              <XML> tag pair); blocks' src_off are offsets
+                              into raw */
     size_t raw_len;
     tt_blocks *blocks;     /* extracted text */
     const char *notes;     /* "; "-separated notes about odd but readable
-                              input ("decoded as windows-1252", "3 invalid
-                              UTF-8 sequences replaced", "empty document",
-                              "HTML repaired: 2 problems"), "" when none */
+                              input, in this order: "gzip-compressed";
+                              "decoded as windows-1252" / "decoded as
+                              utf-16le" / "decoded as utf-16be"; "3 invalid
+                              UTF-8 sequences replaced" (or "undefined
+                              windows-1252 bytes", "invalid UTF-16 code
+                              units"); "empty file" (0 bytes) or "empty
+                              document" (a part or file of white space
+                              only); "HTML repaired: 2 problems". "" when
+                              none. */
 } tt_document;
 
 /* Return non-OK from the callback to stop reading this file; that status is
@@ -97,11 +122,14 @@ typedef struct tt_document {
 typedef tt_status (*tt_document_fn)(void *ctx, const tt_document *doc);
 
 /* Reads one input path and calls fn once per document it holds (once for
- * text or HTML; once per kept part for a wrapper; never for a skipped part).
+ * text or HTML; once per kept part for a wrapper, in wrapper order, named
+ * "path#SEQ:TYPE" or "path#SEQ" when the part has no type; never for a
+ * skipped part). opt may be NULL (defaults).
  * On failure (unreadable, binary, over a limit, bad wrapper) returns the
  * status with err naming the file and the cause; no callback for the failed
  * document. For a wrapper, a part that fails to extract is reported through
  * the return value only after the other parts were handed over.
+ * A status returned by the callback is passed on as is, err untouched.
  * *skipped_parts (may be NULL) receives the number of wrapper parts left out
  * by the type filter or as uuencoded. */
 tt_status tt_read_documents(const char *path, const tt_read_options *opt,

@@ -28,16 +28,27 @@ void tt_source_list_release(tt_source_list *list);
  * recursively (entries sorted bytewise at each level, hidden entries
  * starting with '.' skipped, symlinks followed with loop detection by
  * device+inode, depth capped by TT_LIMIT_DIR_DEPTH); "-" for stdin.
- * Problems with a path become entries with a non-OK status; the return
- * value is TT_ENOMEM only (the list is then left valid but partial). */
+ * Inside a directory only regular files are listed: FIFOs, sockets and
+ * devices are left out silently (reading a FIFO would block).
+ * Problems with a path become entries with a non-OK status: TT_ENOENT "no
+ * such file or directory" (or "broken symlink ..."), TT_ELOOP "symlink loop:
+ * a/b/link points back to a", TT_EIO with the errno text for a directory
+ * that cannot be read, TT_ELIMIT for a directory past the depth cap. The
+ * return value is TT_ENOMEM only (the list is then left valid but
+ * partial). The list owns every path and message; tt_source_list_release
+ * frees them. */
 tt_status tt_source_expand(tt_source_list *list, const char *arg);
 
 /* Reads a whole file ("-" = stdin) into out (reset first), decompressing
- * gzip transparently (detected by its magic bytes, not the name). At most
- * TT_LIMIT_FILE_BYTES after decompression. Errors: TT_ENOENT, TT_EIO
- * (unreadable, a directory, truncated or corrupt gzip), TT_ELIMIT, TT_ENOMEM;
- * err names the file and cause. *was_gzip (may be NULL) is set to 1 when the
- * input was gzip. */
+ * gzip transparently (detected by its magic bytes 1f 8b, not the name;
+ * concatenated members are read in turn, zero padding after the last one is
+ * ignored). At most TT_LIMIT_FILE_BYTES after decompression, or out's own
+ * limit when that is smaller (exactly the limit is accepted). Errors:
+ * TT_ENOENT, TT_EIO (unreadable: the errno text; "is a directory";
+ * "truncated gzip data"; "corrupt gzip data: <zlib's message>"), TT_ELIMIT
+ * (naming the limit's value), TT_ENOMEM; err names the file ("<stdin>" for
+ * "-") and the cause, and out is left empty. *was_gzip (may be NULL) is set
+ * to 1 when the input was gzip. */
 tt_status tt_source_read(const char *path, tt_buf *out, int *was_gzip, tt_error *err);
 
 #endif
