@@ -15,6 +15,7 @@
 #include "termtide/normalize.h"
 #include "termtide/segment.h"
 #include "tt_internal.h"
+#include "termtable_internal.h"
 
 #define MAX_N 3
 
@@ -168,7 +169,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         if (c->normal.len == 0)
             continue;
         int edge_ok = 1;
-        if (stop && tt_termtable_get(stop, c->normal.data, c->normal.len)) {
+        uint64_t h = tti_termtable_hash(c->normal.data, c->normal.len);
+        if (stop && tti_termtable_get_hashed(stop, c->normal.data, c->normal.len, h)) {
             st->stopwords++;
             edge_ok = 0;
         } else if (c->opt.min_length > 1 &&
@@ -188,7 +190,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
             tlen = c->stemmed.len;
         }
         if (unigram_only) {
-            s = tt_termtable_add(table, term, tlen, 1);
+            s = c->stemmer ? tt_termtable_add(table, term, tlen, 1)
+                           : tti_termtable_add_hashed(table, term, tlen, h, 1);
             if (s)
                 return s;
             st->terms_kept++;

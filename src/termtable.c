@@ -18,6 +18,7 @@
 
 #include "termtide/termtable.h"
 #include "tt_internal.h"
+#include "termtable_internal.h"
 
 typedef struct slot {
     uint64_t hash;
@@ -195,9 +196,20 @@ static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t 
     }
 }
 
+uint64_t tti_termtable_hash(const char *term, size_t len)
+{
+    return siphash13((const unsigned char *)term, len);
+}
+
 tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64_t count)
 {
-    uint64_t h = siphash13((const unsigned char *)term, len);
+    return tti_termtable_add_hashed(t, term, len, siphash13((const unsigned char *)term, len),
+                                    count);
+}
+
+tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len, uint64_t h,
+                                   uint64_t count)
+{
     slot *s = find(t, term, len, h);
     if (s->term) {
         s->count += count;
@@ -226,7 +238,11 @@ tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64
 
 uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
 {
-    uint64_t h = siphash13((const unsigned char *)term, len);
+    return tti_termtable_get_hashed(t, term, len, siphash13((const unsigned char *)term, len));
+}
+
+uint64_t tti_termtable_get_hashed(const tt_termtable *t, const char *term, size_t len, uint64_t h)
+{
     const slot *s = find(t, term, len, h);
     return s->term ? s->count : 0;
 }
