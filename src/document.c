@@ -262,6 +262,7 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
         doc.seq = part->seq;
         doc.type = part->type;
         doc.raw = body;
+        doc.raw_off = (size_t)(body - text.data);
         doc.raw_len = body_len;
         doc.blocks = &blocks;
         doc.notes = notes.data;

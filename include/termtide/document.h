@@ -104,6 +104,9 @@ typedef struct tt_document {
                               <XML> tag pair); blocks' src_off are offsets
                               into raw */
     size_t raw_len;
+    size_t raw_off;        /* where raw starts in the decoded file (0 except
+                              for wrapper parts): a block's offset in the
+                              file is raw_off + src_off */
     tt_blocks *blocks;     /* extracted text */
     const char *notes;     /* "; "-separated notes about odd but readable
                               input, in this order: "gzip-compressed";
