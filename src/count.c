@@ -164,6 +164,15 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
             }
         }
         s = tt_normalize(&c->norm, text + tok.off, tok.len, &c->normal);
+        if (s == TT_ELIMIT) {
+            /* NFKC can expand a token many times over (one U+FDFA becomes
+             * 18 characters); a term past the buffer cap is skipped like an
+             * overlong token, never allowed to fail the document. */
+            st->overlong++;
+            c->win_len = 0;
+            c->win_head = 0;
+            continue;
+        }
         if (s)
             return s;
         if (c->normal.len == 0)
