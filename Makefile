@@ -86,7 +86,7 @@ san-test:
 
 check:
 	$(MAKE) test
-	ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 $(MAKE) SAN=1 test
+	ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 $(MAKE) SAN=1 test fuzz-replay
 
 bench: all
 	$(MAKE) -C bench TERMTIDE=$(abspath $(B)/termtide)
@@ -112,4 +112,49 @@ uninstall:
 	rm -rf $(DESTDIR)$(PREFIX)/bin/termtide $(DESTDIR)$(PREFIX)/lib/libtermtide.a $(DESTDIR)$(PREFIX)/include/termtide $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1 $(DESTDIR)$(PREFIX)/share/termtide
 
 clean:
-	rm -rf build build-san
+	rm -rf build build-san build-fuzz
+
+# ---- fuzzing (fuzz/README.md) ------------------------------------------------
+#   make fuzz       replays fuzz/corpus/<target>/ and fuzz/crashes/<target>-*
+#                   through each target built as a plain driver with gcc under
+#                   ASan + UBSan (build-san/fuzz/); no clang needed
+#   make fuzz-run   runs each target under libFuzzer (clang) for FUZZ_SECONDS;
+#                   new crashes land in build-fuzz/crashes/
+FUZZ_TARGETS := extract_html wrapper decode count
+FUZZ_SECONDS ?= 60
+FUZZ_CC      ?= clang
+FUZZ_B       := build-fuzz
+FUZZ_FLAGS   := -O1 -g -fno-omit-frame-pointer -fsanitize=address,undefined -fno-sanitize-recover=all
+FUZZ_LIB_OBJ := $(LIB_SRC:src/%.c=$(FUZZ_B)/obj/%.o) $(FUZZ_B)/obj/gen/stopwords_data.o
+.PHONY: fuzz-replay fuzz-run
+
+fuzz:
+	$(MAKE) SAN=1 fuzz-replay
+
+fuzz-replay: $(FUZZ_TARGETS:%=$(B)/fuzz/replay_%)
+	@for t in $(FUZZ_TARGETS); do \
+	  ./$(B)/fuzz/replay_$$t fuzz/corpus/$$t $$(ls -d fuzz/crashes/$$t-* 2>/dev/null) || exit 1; \
+	done
+
+$(B)/fuzz $(FUZZ_B)/obj/gen:
+	mkdir -p $@
+
+$(B)/fuzz/replay_%: fuzz/fuzz_%.c fuzz/fuzz_common.h $(B)/libtermtide.a | $(B)/fuzz
+	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -DTT_FUZZ_STANDALONE $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) -o $@
+
+$(FUZZ_B)/obj/%.o: src/%.c $(wildcard include/termtide/*.h src/*.h) | $(FUZZ_B)/obj/gen
+	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer-no-link -c $< -o $@
+$(FUZZ_B)/obj/gen/stopwords_data.o: $(GEN_SRC) | $(FUZZ_B)/obj/gen
+	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -c $< -o $@
+$(FUZZ_B)/libtermtide.a: $(FUZZ_LIB_OBJ)
+	rm -f $@ && ar rcs $@ $^
+$(FUZZ_B)/fuzz_%: fuzz/fuzz_%.c fuzz/fuzz_common.h $(FUZZ_B)/libtermtide.a
+	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer $< $(FUZZ_B)/libtermtide.a $(PKG_LIBS) -o $@
+
+fuzz-run: $(FUZZ_TARGETS:%=$(FUZZ_B)/fuzz_%)
+	@for t in $(FUZZ_TARGETS); do \
+	  mkdir -p $(FUZZ_B)/corpus/$$t $(FUZZ_B)/crashes; \
+	  dict=; [ -f fuzz/$$t.dict ] && dict=-dict=fuzz/$$t.dict; \
+	  ./$(FUZZ_B)/fuzz_$$t -max_total_time=$(FUZZ_SECONDS) -timeout=20 -max_len=16384 $$dict \
+	    -artifact_prefix=$(FUZZ_B)/crashes/$$t- $(FUZZ_B)/corpus/$$t fuzz/corpus/$$t || exit 1; \
+	done

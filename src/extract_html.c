@@ -589,6 +589,55 @@ static unsigned char *repaired_copy(const unsigned char *s, size_t len, size_t f
     return c;
 }
 
+/* Finds a start tag with more than TT_LIMIT_HTML_ATTRIBUTES attributes,
+ * before libxml2 sees it (its duplicate check is quadratic in the number of
+ * attributes on one tag). A plain scan of tag syntax: '<' and a letter open
+ * a tag, then name[=value] pairs with quoted or bare values, until '>'.
+ * Returns the tag's offset, or len when none. O(len). */
+static size_t crowded_tag(const unsigned char *s, size_t len)
+{
+    size_t i = 0;
+    while (i < len) {
+        const unsigned char *lt = memchr(s + i, '<', len - i);
+        if (!lt)
+            return len;
+        size_t tag = (size_t)(lt - s), p = tag + 1;
+        i = p;
+        if (p >= len || !tti_is_ascii_alpha(s[p]))
+            continue;
+        while (p < len && !tti_is_ascii_space(s[p]) && s[p] != '>' && s[p] != '/')
+            p++;
+        size_t attributes = 0;
+        for (;;) {
+            while (p < len && (tti_is_ascii_space(s[p]) || s[p] == '/'))
+                p++;
+            if (p >= len || s[p] == '>')
+                break;
+            while (p < len && !tti_is_ascii_space(s[p]) && s[p] != '=' && s[p] != '>' &&
+                   s[p] != '/')
+                p++;
+            if (++attributes > TT_LIMIT_HTML_ATTRIBUTES)
+                return tag;
+            while (p < len && tti_is_ascii_space(s[p]))
+                p++;
+            if (p < len && s[p] == '=') {
+                p++;
+                while (p < len && tti_is_ascii_space(s[p]))
+                    p++;
+                if (p < len && (s[p] == '"' || s[p] == '\'')) {
+                    const unsigned char *close = memchr(s + p + 1, s[p], len - p - 1);
+                    p = close ? (size_t)(close - s) + 1 : len;
+                } else {
+                    while (p < len && !tti_is_ascii_space(s[p]) && s[p] != '>')
+                        p++;
+                }
+            }
+        }
+        i = p;
+    }
+    return len;
+}
+
 /* ---- entry point ------------------------------------------------------- */
 
 tt_status tt_extract_html(const char *html, size_t len, long long src_base,
@@ -607,6 +656,11 @@ tt_status tt_extract_html(const char *html, size_t len, long long src_base,
     xmlSetGenericErrorFunc(NULL, silent_generic_error);
 
     const unsigned char *src = (const unsigned char *)html;
+    size_t crowded = crowded_tag(src, len);
+    if (crowded < len)
+        return tt_error_set(err, TT_ELIMIT, name, src_base + (long long)crowded,
+                            "an HTML tag with more than %d attributes "
+                            "(TT_LIMIT_HTML_ATTRIBUTES)", TT_LIMIT_HTML_ATTRIBUTES);
     unsigned char *copy = NULL;
     size_t bad = first_bad_byte(src, len);
     if (bad < len) {

@@ -15,6 +15,12 @@
  * state the behaviour: deeper content is refused with a message. */
 #define TT_LIMIT_HTML_DEPTH 256
 
+/* Most attributes on one HTML start tag. libxml2 2.9 checks each new
+ * attribute against all earlier ones on the tag, so a tag with a million
+ * attributes takes many minutes; real filings use fewer than 30 (inline XBRL
+ * about 10). At 256 a tag costs at most ~33,000 comparisons. */
+#define TT_LIMIT_HTML_ATTRIBUTES 256
+
 /* Longest single token, in bytes. Longer runs (base64 blobs, a 50 MB line of
  * one "word") are skipped and counted in the document's note, not stored. */
 #define TT_LIMIT_TOKEN_BYTES 256
