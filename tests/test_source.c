@@ -560,23 +560,6 @@ static void test_limits(void **state)
 
 /* Out of memory at each allocation in turn: reported, never crashed on,
  * and the list stays valid. */
-static int fail_after = -1;
-static void *failing_malloc(size_t n)
-{
-    if (fail_after == 0)
-        return NULL;
-    if (fail_after > 0)
-        fail_after--;
-    return malloc(n);
-}
-static void *failing_realloc(void *p, size_t n)
-{
-    if (fail_after == 0)
-        return NULL;
-    if (fail_after > 0)
-        fail_after--;
-    return realloc(p, n);
-}
 
 static void test_out_of_memory(void **state)
 {
@@ -592,13 +575,13 @@ static void test_out_of_memory(void **state)
     char dir[512], file[512];
     path_of(dir, sizeof dir, "oom");
     path_of(file, sizeof file, "oom.gz");
-    tt_allocator a = { failing_malloc, failing_realloc, free };
+    tt_allocator a = { tt_test_failing_malloc, tt_test_failing_realloc, free };
 
     int done_expand = 0, done_read = 0;
     for (int k = 0; k < 200 && !(done_expand && done_read); k++) {
         tt_source_list list;
         tt_source_list_init(&list);
-        fail_after = k;
+        tt_test_fail_after = k;
         tt_set_allocator(&a);
         tt_status st = tt_source_expand(&list, dir);
         tt_set_allocator(NULL);
@@ -612,7 +595,7 @@ static void test_out_of_memory(void **state)
         tt_buf b;
         tt_error err;
         tt_buf_init(&b, 0);
-        fail_after = k;
+        tt_test_fail_after = k;
         tt_set_allocator(&a);
         st = tt_source_read(file, &b, NULL, &err);
         tt_set_allocator(NULL);
@@ -623,7 +606,7 @@ static void test_out_of_memory(void **state)
         }
         tt_buf_release(&b);
     }
-    fail_after = -1;
+    tt_test_fail_after = -1;
     assert_true(done_expand && done_read);
 }
 

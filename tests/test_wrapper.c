@@ -394,40 +394,23 @@ static void test_detect_kind(void **state)
 }
 
 /* Out of memory at each allocation in turn is reported, never crashed on. */
-static int fail_after = -1;
-static void *failing_malloc(size_t n)
-{
-    if (fail_after == 0)
-        return NULL;
-    if (fail_after > 0)
-        fail_after--;
-    return malloc(n);
-}
-static void *failing_realloc(void *p, size_t n)
-{
-    if (fail_after == 0)
-        return NULL;
-    if (fail_after > 0)
-        fail_after--;
-    return realloc(p, n);
-}
 
 static void test_split_out_of_memory(void **state)
 {
     (void)state;
     size_t len;
     char *text = slurp(FIXTURE, &len);
-    tt_allocator a = { failing_malloc, failing_realloc, free };
+    tt_allocator a = { tt_test_failing_malloc, tt_test_failing_realloc, free };
     int ok = 0;
     for (int k = 0; k < 20 && !ok; k++) {
         tt_wrapper w;
         tt_error err;
         tt_wrapper_init(&w);
-        fail_after = k;
+        tt_test_fail_after = k;
         tt_set_allocator(&a);
         tt_status st = tt_wrapper_split(text, len, &w, "q3", &err);
         tt_set_allocator(NULL);
-        fail_after = -1;
+        tt_test_fail_after = -1;
         assert_true(st == TT_OK || st == TT_ENOMEM);
         ok = st == TT_OK;
         tt_wrapper_release(&w);

@@ -26,4 +26,28 @@ static inline const char *tt_test_python(void)
     return p ? p : "/usr/bin/python3";
 }
 
+/* A failing allocator for out-of-memory tests: with tt_test_fail_after = k
+ * the (k+1)-th allocation from now fails, and every later one too; -1 never
+ * fails. Install with tt_set_allocator(&(tt_allocator){ tt_test_failing_malloc,
+ * tt_test_failing_realloc, free }). */
+static int tt_test_fail_after = -1;
+
+static inline void *tt_test_failing_malloc(size_t n)
+{
+    if (tt_test_fail_after == 0)
+        return NULL;
+    if (tt_test_fail_after > 0)
+        tt_test_fail_after--;
+    return malloc(n);
+}
+
+static inline void *tt_test_failing_realloc(void *p, size_t n)
+{
+    if (tt_test_fail_after == 0)
+        return NULL;
+    if (tt_test_fail_after > 0)
+        tt_test_fail_after--;
+    return realloc(p, n);
+}
+
 #endif
