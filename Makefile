@@ -78,15 +78,19 @@ test: all $(TESTS)
 	  if TT_BIN=$(B)/termtide PYTHON=$(PYTHON) ./$$t; then pass=$$((pass+1)); \
 	  else fail=$$((fail+1)); failed="$$failed $$t"; fi; \
 	done; \
-	echo "test binaries: $$pass passed, $$fail failed"; \
+	echo "$$pass $$fail" > $(B)/test-counts; \
+	echo "tests: $$pass passed, $$fail failed"; \
 	if [ $$fail -ne 0 ]; then echo "failed:$$failed"; exit 1; fi
 
 san-test:
 	$(MAKE) SAN=1 test
 
+# The closing line counts the test programs of both builds.
 check:
 	$(MAKE) test
 	ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 $(MAKE) SAN=1 test fuzz-replay
+	@read p1 f1 < build/test-counts; read p2 f2 < build-san/test-counts; \
+	echo "check: $$((p1 + p2)) passed, $$((f1 + f2)) failed"
 
 bench: all
 	$(MAKE) -C bench TERMTIDE=$(abspath $(B)/termtide)
