@@ -19,6 +19,30 @@
 
 #define MAX_N 3
 
+/* The token cache: a direct-mapped table from a token's raw bytes (up to
+ * CACHE_RAW of them) to what the slow path makes of it: the final term
+ * (normalized, stemmed if asked), its table hash, and whether it is a
+ * stop-word or too short. Normalization is a pure function of the raw
+ * bytes, so an entry never goes stale; word frequencies follow Zipf's law,
+ * so a few thousand entries catch most tokens and skip NFKC, case folding,
+ * the stop-word lookup and SipHash for them. The cache index is an unkeyed
+ * multiply-shift hash: crafted collisions only cause misses (the slow path),
+ * never wrong terms, because the whole raw key is compared. */
+#define CACHE_BITS 12
+#define CACHE_RAW 24
+#define CACHE_STOP 1u
+#define CACHE_SHORT 2u
+#define CACHE_EMPTY 4u
+
+typedef struct cache_entry {
+    uint64_t raw[CACHE_RAW / 8]; /* the raw token, zero-padded */
+    uint64_t hash;               /* tti_termtable_hash(term) */
+    uint8_t raw_len;             /* 0: unused entry */
+    uint8_t term_len;
+    uint8_t flags;
+    char term[CACHE_RAW];
+} cache_entry;
+
 typedef struct window_slot {
     tt_buf term;
     int edge_ok; /* may start or end an n-gram (not a stop-word, not short) */
@@ -34,6 +58,7 @@ struct tt_counter {
     window_slot win[MAX_N];
     size_t win_len;  /* tokens in the window, at most ngram_max */
     size_t win_head; /* index of the oldest */
+    cache_entry *cache; /* 1 << CACHE_BITS entries */
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -60,6 +85,11 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
     tt_buf_init(&c->gram, TT_LIMIT_TOKEN_BYTES * 8 * MAX_N + MAX_N);
     for (int i = 0; i < MAX_N; i++)
         tt_buf_init(&c->win[i].term, TT_LIMIT_TOKEN_BYTES * 8);
+    c->cache = tt_calloc((size_t)1 << CACHE_BITS, sizeof *c->cache);
+    if (!c->cache) {
+        tt_counter_free(c);
+        return NULL;
+    }
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
         if (!c->stemmer) {
@@ -81,6 +111,7 @@ void tt_counter_free(tt_counter *c)
     tt_buf_release(&c->gram);
     for (int i = 0; i < MAX_N; i++)
         tt_buf_release(&c->win[i].term);
+    tt_free(c->cache);
     tt_free(c);
 }
 
@@ -136,13 +167,74 @@ static tt_status push_window(tt_counter *c, const char *term, size_t len, int ed
     return tt_buf_append(&c->win[slot].term, term, len);
 }
 
+/* What a token becomes: its final term (a view into the cache or into a
+ * counter buffer, valid until the next token), the term's table hash, and
+ * CACHE_* flags. TT_ELIMIT when normalization outgrows its buffer. */
+static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_kind kind,
+                         const char **term, size_t *tlen, uint64_t *hash, unsigned *flags)
+{
+    cache_entry *e = NULL;
+    uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
+    if (len <= CACHE_RAW) {
+        memcpy(key, raw, len);
+        uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
+                       (key[2] * 0x165667B19E3779F9ULL) ^ len;
+        e = &c->cache[(mix ^ (mix >> 29)) >> (64 - CACHE_BITS) & ((1u << CACHE_BITS) - 1)];
+        if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
+            e->raw[2] == key[2]) {
+            *term = e->term;
+            *tlen = e->term_len;
+            *hash = e->hash;
+            *flags = e->flags;
+            return TT_OK;
+        }
+    }
+    tt_status s = tt_normalize(&c->norm, raw, len, &c->normal);
+    if (s)
+        return s;
+    unsigned f = 0;
+    const char *t = c->normal.data;
+    size_t n = c->normal.len;
+    uint64_t h = 0;
+    if (n == 0) {
+        f = CACHE_EMPTY;
+    } else {
+        h = tti_termtable_hash(t, n);
+        if (c->opt.stopwords && tti_termtable_get_hashed(c->opt.stopwords, t, n, h))
+            f = CACHE_STOP;
+        else if (c->opt.min_length > 1 && tt_utf8_length(t, n) < c->opt.min_length)
+            f = CACHE_SHORT;
+        if (c->stemmer && kind == TT_TOKEN_WORD) {
+            s = tt_stem(c->stemmer, t, n, &c->stemmed);
+            if (s)
+                return s;
+            t = c->stemmed.data;
+            n = c->stemmed.len;
+            h = tti_termtable_hash(t, n);
+        }
+    }
+    if (e && n <= CACHE_RAW) {
+        memcpy(e->raw, key, sizeof key);
+        e->raw_len = (uint8_t)len;
+        e->term_len = (uint8_t)n;
+        e->flags = (uint8_t)f;
+        e->hash = h;
+        if (n)
+            memcpy(e->term, t, n);
+    }
+    *term = t;
+    *tlen = n;
+    *hash = h;
+    *flags = f;
+    return TT_OK;
+}
+
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
                              tt_termtable *table, tt_doc_stats *st)
 {
     tt_tokenizer tk;
     tt_token tok;
     tt_status s;
-    const tt_termtable *stop = c->opt.stopwords;
     const int unigram_only = c->opt.ngram_max == 1;
 
     tt_tokenizer_init(&tk, text, len);
@@ -163,7 +255,11 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                 continue;
             }
         }
-        s = tt_normalize(&c->norm, text + tok.off, tok.len, &c->normal);
+        const char *term;
+        size_t tlen;
+        uint64_t h;
+        unsigned flags;
+        s = resolve(c, text + tok.off, tok.len, tok.kind, &term, &tlen, &h, &flags);
         if (s == TT_ELIMIT) {
             /* NFKC can expand a token many times over (one U+FDFA becomes
              * 18 characters); a term past the buffer cap is skipped like an
@@ -175,32 +271,20 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         }
         if (s)
             return s;
-        if (c->normal.len == 0)
+        if (flags & CACHE_EMPTY)
             continue;
         int edge_ok = 1;
-        uint64_t h = tti_termtable_hash(c->normal.data, c->normal.len);
-        if (stop && tti_termtable_get_hashed(stop, c->normal.data, c->normal.len, h)) {
+        if (flags & CACHE_STOP) {
             st->stopwords++;
             edge_ok = 0;
-        } else if (c->opt.min_length > 1 &&
-                   tt_utf8_length(c->normal.data, c->normal.len) < c->opt.min_length) {
+        } else if (flags & CACHE_SHORT) {
             st->short_words++;
             edge_ok = 0;
         }
         if (unigram_only && !edge_ok)
             continue;
-        const char *term = c->normal.data;
-        size_t tlen = c->normal.len;
-        if (c->stemmer && tok.kind == TT_TOKEN_WORD) {
-            s = tt_stem(c->stemmer, term, tlen, &c->stemmed);
-            if (s)
-                return s;
-            term = c->stemmed.data;
-            tlen = c->stemmed.len;
-        }
         if (unigram_only) {
-            s = c->stemmer ? tt_termtable_add(table, term, tlen, 1)
-                           : tti_termtable_add_hashed(table, term, tlen, h, 1);
+            s = tti_termtable_add_hashed(table, term, tlen, h, 1);
             if (s)
                 return s;
             st->terms_kept++;

@@ -281,6 +281,39 @@ static size_t hyphen_len(const unsigned char *s, size_t n)
 
 #define SEEN_TOKEN (SEEN_LETTER | SEEN_DIGIT)
 
+/* Fast path for the commonest token: a run of ASCII letters, digits and
+ * '_' starting at a boundary. Such a run never breaks inside (WB5, WB8–WB10,
+ * WB13a, WB13b). It ends the segment when the byte after it is ASCII and is
+ * neither a letter, digit or '_' nor one of the Mid* and quote characters
+ * . : ' , ; — every other ASCII character is Other, CR, LF, WSegSpace or
+ * Double_Quote, which no rule joins to a letter or digit (WB999), and no
+ * Extend/Format/ZWJ is ASCII (WB4). After one of . : ' , ; the segment also
+ * ends unless the next byte is non-ASCII or a letter, digit or '_' (the only
+ * cases in which WB6/WB7, WB11/WB12 can join across it). Returns the end,
+ * or 0 to leave the decision to segment_end(). */
+static size_t ascii_word_end(const unsigned char *s, size_t len, size_t p, unsigned *seen)
+{
+    size_t q = p;
+    unsigned run = 0, f;
+    while (q < len && (f = tti_wb_ascii_run[s[q]]) != 0) {
+        run |= f;
+        q++;
+    }
+    if (q == p)
+        return 0;
+    if (q < len) {
+        unsigned c = s[q];
+        if (c >= 0x80)
+            return 0;
+        if (c == '.' || c == ':' || c == '\'' || c == ',' || c == ';') {
+            if (q + 1 < len && (s[q + 1] >= 0x80 || tti_wb_ascii_run[s[q + 1]]))
+                return 0;
+        }
+    }
+    *seen = ((run & TTI_WB_LETTER) ? SEEN_LETTER : 0) | ((run & TTI_WB_RUN_DIGIT) ? SEEN_DIGIT : 0);
+    return q;
+}
+
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
 {
     const unsigned char *s = (const unsigned char *)t->text;
@@ -306,7 +339,9 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
             }
         }
         unsigned seen;
-        size_t end = segment_end(s, len, p, &seen);
+        size_t end = b < 0x80 ? ascii_word_end(s, len, p, &seen) : 0;
+        if (!end)
+            end = segment_end(s, len, p, &seen);
         if (!(seen & SEEN_TOKEN)) {
             /* Punctuation, spaces, symbols: only a sentence end matters.
              * Terminals inside a token segment ("3.5", "e.g") are not
