@@ -61,6 +61,12 @@ typedef struct worker_ctx {
     slot *s;
 } worker_ctx;
 
+/* Per-thread state: a counter and a reader, both reused across inputs. */
+typedef struct worker_state {
+    tt_counter *counter;
+    tt_reader *reader;
+} worker_state;
+
 void tt_batch_options_init(tt_batch_options *o)
 {
     memset(o, 0, sizeof *o);
@@ -171,7 +177,7 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     return TT_OK;
 }
 
-static void process_input(runner *r, tt_counter *counter, size_t i, slot *s)
+static void process_input(runner *r, const worker_state *ws, size_t i, slot *s)
 {
     const tt_source_entry *in = &r->inputs->items[i];
     tt_error err;
@@ -185,14 +191,15 @@ static void process_input(runner *r, tt_counter *counter, size_t i, slot *s)
     struct stat sb;
     if (strcmp(in->path, "-") != 0 && stat(in->path, &sb) == 0)
         s->bytes = (uint64_t)sb.st_size;
-    if (!counter) {
+    if (!ws->counter || !ws->reader) {
         tt_error_set(&err, TT_ENOMEM, in->path, -1, "out of memory");
         add_problem(s, in->path, &err, 1);
         return;
     }
-    worker_ctx w = { r, counter, s };
+    worker_ctx w = { r, ws->counter, s };
     size_t parts_skipped = 0;
-    tt_status st = tt_read_documents(in->path, &r->opt->read, on_doc, &w, &parts_skipped, &err);
+    tt_status st = tt_reader_read(ws->reader, in->path, &r->opt->read, on_doc, &w,
+                                  &parts_skipped, &err);
     s->parts_skipped = parts_skipped;
     if (st) {
         if (!err.file[0])
@@ -206,7 +213,7 @@ static void process_input(runner *r, tt_counter *counter, size_t i, slot *s)
 static void *worker_main(void *arg)
 {
     runner *r = arg;
-    tt_counter *counter = tt_counter_new(&r->opt->count);
+    worker_state ws = { tt_counter_new(&r->opt->count), tt_reader_new() };
     pthread_mutex_lock(&r->lock);
     for (;;) {
         while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)
@@ -216,13 +223,14 @@ static void *worker_main(void *arg)
         size_t i = r->next++;
         slot *s = &r->slots[i % r->window];
         pthread_mutex_unlock(&r->lock);
-        process_input(r, counter, i, s);
+        process_input(r, &ws, i, s);
         pthread_mutex_lock(&r->lock);
         s->done = 1;
         pthread_cond_broadcast(&r->cond_done);
     }
     pthread_mutex_unlock(&r->lock);
-    tt_counter_free(counter);
+    tt_counter_free(ws.counter);
+    tt_reader_free(ws.reader);
     return NULL;
 }
 
@@ -303,20 +311,23 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     tt_status st = TT_OK;
 
     if (threads == 1) {
-        tt_counter *counter = tt_counter_new(&opt->count);
-        if (!counter) {
+        worker_state ws = { tt_counter_new(&opt->count), tt_reader_new() };
+        if (!ws.counter || !ws.reader) {
+            tt_counter_free(ws.counter);
+            tt_reader_free(ws.reader);
             tt_free(r.slots);
             return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory (or bad count options)");
         }
         for (size_t i = 0; i < inputs->n && !st; i++) {
             slot *s = &r.slots[0];
-            process_input(&r, counter, i, s);
+            process_input(&r, &ws, i, s);
             st = deliver(&r, s, i, sum, err);
             slot_reset(s);
             if (opt->on_progress)
                 opt->on_progress(opt->ctx, i + 1, inputs->n, sum->bytes, bytes_total);
         }
-        tt_counter_free(counter);
+        tt_counter_free(ws.counter);
+        tt_reader_free(ws.reader);
         tt_free(r.slots);
         return st;
     }

@@ -153,12 +153,74 @@ static tt_status part_notes(tt_buf *notes, const tt_buf *base, const char *raw, 
     return st;
 }
 
+/* A reader keeps its buffers from one file to the next, so a batch of
+ * many documents does not pay for fresh memory (and its page faults) each
+ * time. A buffer that grew past KEEP_BYTES for a very large file is given
+ * back afterwards, so a reader's memory stays bounded by typical documents. */
+#define KEEP_BYTES ((size_t)16 << 20)
+
+struct tt_reader {
+    tt_buf raw, text, base_notes, notes, name;
+    tt_blocks blocks;
+};
+
+tt_reader *tt_reader_new(void)
+{
+    tt_reader *r = tt_calloc(1, sizeof *r);
+    if (!r)
+        return NULL;
+    /* Both unlimited here: the source stage caps what it reads at
+     * TT_LIMIT_FILE_BYTES, and decoding (which swaps the two) may expand
+     * Windows-1252 or UTF-16 text past the file's size. */
+    tt_buf_init(&r->raw, 0);
+    tt_buf_init(&r->text, 0);
+    tt_buf_init(&r->base_notes, 0);
+    tt_buf_init(&r->notes, 0);
+    tt_buf_init(&r->name, 0);
+    tt_blocks_init(&r->blocks);
+    return r;
+}
+
+void tt_reader_free(tt_reader *r)
+{
+    if (!r)
+        return;
+    tt_buf_release(&r->raw);
+    tt_buf_release(&r->text);
+    tt_buf_release(&r->base_notes);
+    tt_buf_release(&r->notes);
+    tt_buf_release(&r->name);
+    tt_blocks_release(&r->blocks);
+    tt_free(r);
+}
+
+static void trim(tt_buf *b)
+{
+    if (b->cap > KEEP_BYTES)
+        tt_buf_clear(b);
+    else
+        tt_buf_reset(b);
+}
+
 tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_document_fn fn,
                             void *ctx, size_t *skipped_parts, tt_error *err)
 {
+    tt_reader *r = tt_reader_new();
+    if (!r) {
+        if (skipped_parts)
+            *skipped_parts = 0;
+        return tt_error_set(err, TT_ENOMEM, strcmp(path, "-") == 0 ? "<stdin>" : path, -1,
+                            "out of memory");
+    }
+    tt_status st = tt_reader_read(r, path, opt, fn, ctx, skipped_parts, err);
+    tt_reader_free(r);
+    return st;
+}
+
+tt_status tt_reader_read(tt_reader *r, const char *path, const tt_read_options *opt,
+                         tt_document_fn fn, void *ctx, size_t *skipped_parts, tt_error *err)
+{
     const char *shown = strcmp(path, "-") == 0 ? "<stdin>" : path;
-    tt_buf raw, text, base_notes, notes, name;
-    tt_blocks blocks;
     tt_wrapper wrapper;
     tt_decode_info info;
     tt_document doc;
@@ -169,30 +231,30 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
 
     if (skipped_parts)
         *skipped_parts = 0;
-    tt_buf_init(&raw, TT_LIMIT_FILE_BYTES);
-    tt_buf_init(&text, 0);
-    tt_buf_init(&base_notes, 0);
-    tt_buf_init(&notes, 0);
-    tt_buf_init(&name, 0);
-    tt_blocks_init(&blocks);
+    tt_buf_reset(&r->raw);
+    tt_buf_reset(&r->text);
+    tt_buf_reset(&r->base_notes);
+    tt_buf_reset(&r->notes);
+    tt_buf_reset(&r->name);
+    tt_blocks_reset(&r->blocks);
     tt_wrapper_init(&wrapper);
     tt_error_init(&part_err);
 
-    if ((st = tt_source_read(path, &raw, &was_gzip, err)) != TT_OK)
+    if ((st = tt_source_read(path, &r->raw, &was_gzip, err)) != TT_OK)
         goto done;
-    empty_file = raw.len == 0;
-    /* Valid UTF-8 is decoded where it lies; otherwise text receives the
-     * decoded copy and the raw bytes are freed at once. */
-    if ((st = tt_decode_buf(&raw, &text, &info, shown, err)) != TT_OK)
+    empty_file = r->raw.len == 0;
+    /* Valid UTF-8 is decoded where it lies; otherwise the decoded copy is
+     * swapped in. Either way the decoded text ends in r->text and the other
+     * buffer is kept for the next file. */
+    if ((st = tt_decode_buf(&r->raw, &r->text, &info, shown, err)) != TT_OK)
         goto done;
     {
-        tt_buf t = raw;
-        raw = text;
-        text = t;
-        tt_buf_release(&raw);
+        tt_buf t = r->raw;
+        r->raw = r->text;
+        r->text = t;
     }
 
-    if ((st = file_notes(&base_notes, was_gzip, &info)) != TT_OK)
+    if ((st = file_notes(&r->base_notes, was_gzip, &info)) != TT_OK)
         goto nomem;
 
     memset(&doc, 0, sizeof doc);
@@ -201,25 +263,25 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
     doc.was_gzip = was_gzip;
     doc.type = doc.entity = doc.period = doc.form = "";
 
-    kind = tt_detect_kind(text.data, text.len);
+    kind = tt_detect_kind(r->text.data, r->text.len);
     if (kind != TT_KIND_WRAPPER) {
-        if ((st = extract(kind, text.data, text.len, opt, &blocks, shown, err)) != TT_OK)
+        if ((st = extract(kind, r->text.data, r->text.len, opt, &r->blocks, shown, err)) != TT_OK)
             goto done;
-        if ((st = part_notes(&notes, &base_notes, text.data, text.len,
-                             empty_file ? "empty file" : "empty document", &blocks)) != TT_OK)
+        if ((st = part_notes(&r->notes, &r->base_notes, r->text.data, r->text.len,
+                             empty_file ? "empty file" : "empty document", &r->blocks)) != TT_OK)
             goto nomem;
         doc.name = path;
         doc.kind = kind;
         doc.outer_kind = kind;
-        doc.raw = text.data;
-        doc.raw_len = text.len;
-        doc.blocks = &blocks;
-        doc.notes = notes.data;
+        doc.raw = r->text.data;
+        doc.raw_len = r->text.len;
+        doc.blocks = &r->blocks;
+        doc.notes = r->notes.data;
         st = fn(ctx, &doc);
         goto done;
     }
 
-    if ((st = tt_wrapper_split(text.data, text.len, &wrapper, shown, err)) != TT_OK)
+    if ((st = tt_wrapper_split(r->text.data, r->text.len, &wrapper, shown, err)) != TT_OK)
         goto done;
     doc.outer_kind = TT_KIND_WRAPPER;
     doc.entity = wrapper.entity;
@@ -232,21 +294,21 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
                 (*skipped_parts)++;
             continue;
         }
-        const char *body = text.data + part->text_off;
+        const char *body = r->text.data + part->text_off;
         size_t body_len = part->text_len;
         strip_outer_tag(&body, &body_len);
         tt_doc_kind pk = tt_detect_kind(body, body_len);
         if (pk == TT_KIND_WRAPPER)
             pk = TT_KIND_TEXT; /* a nested wrapper is not split again */
 
-        tt_buf_reset(&name);
-        st = part->type[0] ? tt_buf_printf(&name, "%s#%zu:%s", path, part->seq, part->type)
-                           : tt_buf_printf(&name, "%s#%zu", path, part->seq);
+        tt_buf_reset(&r->name);
+        st = part->type[0] ? tt_buf_printf(&r->name, "%s#%zu:%s", path, part->seq, part->type)
+                           : tt_buf_printf(&r->name, "%s#%zu", path, part->seq);
         if (st != TT_OK)
             goto nomem;
         tt_error perr;
         tt_error_init(&perr);
-        st = extract(pk, body, body_len, opt, &blocks, name.data, &perr);
+        st = extract(pk, body, body_len, opt, &r->blocks, r->name.data, &perr);
         if (st != TT_OK) {
             if (first_fail == TT_OK) {
                 first_fail = st;
@@ -254,18 +316,18 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
             }
             continue;
         }
-        if ((st = part_notes(&notes, &base_notes, body, body_len, "empty document", &blocks)) !=
+        if ((st = part_notes(&r->notes, &r->base_notes, body, body_len, "empty document", &r->blocks)) !=
             TT_OK)
             goto nomem;
-        doc.name = name.data;
+        doc.name = r->name.data;
         doc.kind = pk;
         doc.seq = part->seq;
         doc.type = part->type;
         doc.raw = body;
-        doc.raw_off = (size_t)(body - text.data);
+        doc.raw_off = (size_t)(body - r->text.data);
         doc.raw_len = body_len;
-        doc.blocks = &blocks;
-        doc.notes = notes.data;
+        doc.blocks = &r->blocks;
+        doc.notes = r->notes.data;
         if ((st = fn(ctx, &doc)) != TT_OK)
             goto done;
     }
@@ -277,12 +339,14 @@ tt_status tt_read_documents(const char *path, const tt_read_options *opt, tt_doc
 nomem:
     st = tt_error_set(err, TT_ENOMEM, shown, -1, "out of memory");
 done:
-    tt_buf_release(&raw);
-    tt_buf_release(&text);
-    tt_buf_release(&base_notes);
-    tt_buf_release(&notes);
-    tt_buf_release(&name);
-    tt_blocks_release(&blocks);
+    trim(&r->raw);
+    trim(&r->text);
+    if (r->blocks.text.cap > KEEP_BYTES) {
+        tt_blocks_release(&r->blocks);
+        tt_blocks_init(&r->blocks);
+    } else {
+        tt_blocks_reset(&r->blocks);
+    }
     tt_wrapper_release(&wrapper);
     return st;
 }

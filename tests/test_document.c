@@ -319,6 +319,46 @@ static void test_failures(void **state)
 
 /* Out of memory at each allocation in turn: a status, never a crash. */
 
+/* One reader over files of every kind in turn (its buffers reused and
+ * swapped by decoding) sees exactly what a fresh tt_read_documents sees. */
+static void test_reader_reuse(void **state)
+{
+    (void)state;
+    char p1[600], p2[600], p3[600], p4[600], p5[600];
+    const char *cp1252 = "Caf\xe9 \x93quoted\x94 text\n";
+    const char *big_html_head = "<html><body><p>Alpha beta</p><td>gamma</td><td>delta</td>";
+    put(p1, sizeof p1, "r1.txt", "Plain words here.\n\nSecond paragraph.\n", 37);
+    put(p2, sizeof p2, "r2.txt", cp1252, strlen(cp1252));
+    put(p3, sizeof p3, "r3.htm", big_html_head, strlen(big_html_head));
+    put(p4, sizeof p4, "r4.txt", "", 0);
+    const char wrapper[] = "<DOCUMENT>\n<TYPE>10-Q\n<SEQUENCE>1\n<TEXT>\nWrapped body words\n"
+                           "</TEXT>\n</DOCUMENT>\n";
+    put(p5, sizeof p5, "r5.txt", wrapper, sizeof wrapper - 1);
+    const char *paths[] = { p1, p2, p3, p4, p5, p2, p1, p3 };
+    tt_reader *r = tt_reader_new();
+    assert_non_null(r);
+    tt_read_options opt;
+    memset(&opt, 0, sizeof opt);
+    for (size_t i = 0; i < sizeof paths / sizeof paths[0]; i++) {
+        seen fresh, reused;
+        size_t sk1, sk2;
+        tt_error e1, e2;
+        assert_int_equal(read_all(paths[i], NULL, &fresh, &sk1, &e1), TT_OK);
+        memset(&reused, 0, sizeof reused);
+        tt_error_init(&e2);
+        assert_int_equal(tt_reader_read(r, paths[i], &opt, collect, &reused, &sk2, &e2), TT_OK);
+        assert_int_equal(fresh.n, reused.n);
+        for (size_t k = 0; k < fresh.n; k++) {
+            assert_string_equal(fresh.name[k], reused.name[k]);
+            assert_string_equal(fresh.text[k], reused.text[k]);
+            assert_string_equal(fresh.notes[k], reused.notes[k]);
+            assert_int_equal(fresh.enc[k], reused.enc[k]);
+            assert_int_equal(fresh.nblocks[k], reused.nblocks[k]);
+        }
+    }
+    tt_reader_free(r);
+}
+
 static void test_out_of_memory(void **state)
 {
     (void)state;
@@ -350,6 +390,7 @@ int main(void)
         cmocka_unit_test(test_wrapper_types),
         cmocka_unit_test(test_wrapper_part_failure),
         cmocka_unit_test(test_failures),
+        cmocka_unit_test(test_reader_reuse),
         cmocka_unit_test(test_out_of_memory),
     };
     return cmocka_run_group_tests(tests, setup, teardown);
