@@ -43,6 +43,8 @@ typedef struct cache_entry {
     char term[CACHE_RAW];
 } cache_entry;
 
+_Static_assert(sizeof(cache_entry) == 64, "one cache entry per 64-byte line");
+
 typedef struct window_slot {
     tt_buf term;
     int edge_ok; /* may start or end an n-gram (not a stop-word, not short) */
@@ -58,7 +60,8 @@ struct tt_counter {
     window_slot win[MAX_N];
     size_t win_len;  /* tokens in the window, at most ngram_max */
     size_t win_head; /* index of the oldest */
-    cache_entry *cache; /* 1 << CACHE_BITS entries */
+    cache_entry *cache; /* 1 << CACHE_BITS entries, 64-byte aligned */
+    void *cache_mem;    /* the allocation cache points into */
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -85,11 +88,13 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
     tt_buf_init(&c->gram, TT_LIMIT_TOKEN_BYTES * 8 * MAX_N + MAX_N);
     for (int i = 0; i < MAX_N; i++)
         tt_buf_init(&c->win[i].term, TT_LIMIT_TOKEN_BYTES * 8);
-    c->cache = tt_calloc((size_t)1 << CACHE_BITS, sizeof *c->cache);
-    if (!c->cache) {
+    /* One entry per cache line: the lookup touches a single line. */
+    c->cache_mem = tt_calloc(((size_t)1 << CACHE_BITS) + 1, sizeof *c->cache);
+    if (!c->cache_mem) {
         tt_counter_free(c);
         return NULL;
     }
+    c->cache = (cache_entry *)(((uintptr_t)c->cache_mem + 63) & ~(uintptr_t)63);
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
         if (!c->stemmer) {
@@ -111,7 +116,7 @@ void tt_counter_free(tt_counter *c)
     tt_buf_release(&c->gram);
     for (int i = 0; i < MAX_N; i++)
         tt_buf_release(&c->win[i].term);
-    tt_free(c->cache);
+    tt_free(c->cache_mem);
     tt_free(c);
 }
 
@@ -167,6 +172,35 @@ static tt_status push_window(tt_counter *c, const char *term, size_t len, int ed
     return tt_buf_append(&c->win[slot].term, term, len);
 }
 
+/* The raw token as zero-padded little-endian words, built from fixed-size
+ * loads (a variable-length memcpy into the key and reading it back as words
+ * stalls on store forwarding, and this runs once per token). */
+static inline uint64_t load_upto8(const char *p, size_t n)
+{
+    const unsigned char *u = (const unsigned char *)p;
+    if (n >= 8) {
+        uint64_t v;
+        memcpy(&v, p, 8);
+        return v;
+    }
+    if (n >= 4) {
+        uint32_t a, b;
+        memcpy(&a, p, 4);
+        memcpy(&b, p + n - 4, 4);
+        return (uint64_t)a | ((uint64_t)b << ((n - 4) * 8));
+    }
+    if (n == 0)
+        return 0;
+    return (uint64_t)u[0] | ((uint64_t)u[n / 2] << (n / 2 * 8)) | ((uint64_t)u[n - 1] << ((n - 1) * 8));
+}
+
+static inline void load_key(const char *raw, size_t len, uint64_t key[CACHE_RAW / 8])
+{
+    key[0] = load_upto8(raw, len);
+    key[1] = len > 8 ? load_upto8(raw + 8, len - 8) : 0;
+    key[2] = len > 16 ? load_upto8(raw + 16, len - 16) : 0;
+}
+
 /* What a token becomes: its final term (a view into the cache or into a
  * counter buffer, valid until the next token), the term's table hash, and
  * CACHE_* flags. TT_ELIMIT when normalization outgrows its buffer. */
@@ -176,7 +210,7 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
     if (len <= CACHE_RAW) {
-        memcpy(key, raw, len);
+        load_key(raw, len, key);
         uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
                        (key[2] * 0x165667B19E3779F9ULL) ^ len;
         e = &c->cache[(mix ^ (mix >> 29)) >> (64 - CACHE_BITS) & ((1u << CACHE_BITS) - 1)];

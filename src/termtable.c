@@ -183,6 +183,36 @@ static tt_status grow(tt_termtable *t)
     return TT_OK;
 }
 
+/* Byte equality for short terms without a library call: overlapping
+ * fixed-size loads cover any length from 1 to 16; longer terms use memcmp.
+ * Only called when the hashes already match, so it nearly always succeeds. */
+static inline int same_bytes(const char *a, const char *b, size_t n)
+{
+    uint64_t x, y, u, v;
+    if (n >= 8 && n <= 16) {
+        memcpy(&x, a, 8);
+        memcpy(&y, b, 8);
+        memcpy(&u, a + n - 8, 8);
+        memcpy(&v, b + n - 8, 8);
+        return ((x ^ y) | (u ^ v)) == 0;
+    }
+    if (n >= 4 && n < 8) {
+        uint32_t x4, y4, u4, v4;
+        memcpy(&x4, a, 4);
+        memcpy(&y4, b, 4);
+        memcpy(&u4, a + n - 4, 4);
+        memcpy(&v4, b + n - 4, 4);
+        return ((x4 ^ y4) | (u4 ^ v4)) == 0;
+    }
+    if (n < 4) {
+        for (size_t i = 0; i < n; i++)
+            if (a[i] != b[i])
+                return 0;
+        return 1;
+    }
+    return memcmp(a, b, n) == 0;
+}
+
 static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
 {
     size_t i = (size_t)h & (t->cap - 1);
@@ -190,7 +220,7 @@ static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t 
         slot *s = &t->slots[i];
         if (!s->term)
             return s;
-        if (s->hash == h && s->len == len && memcmp(s->term, term, len) == 0)
+        if (s->hash == h && s->len == len && same_bytes(s->term, term, len))
             return s;
         i = (i + 1) & (t->cap - 1);
     }
