@@ -30,6 +30,8 @@ typedef struct event {
     uint64_t bytes;
     tt_doc_stats stats;
     tt_termtable *table;
+    tt_buf prepared;
+    tt_status prepare_status;
     /* EV_PROBLEM */
     tt_error err;
     int skipped;
@@ -59,6 +61,7 @@ typedef struct worker_ctx {
     runner *r;
     tt_counter *counter;
     slot *s;
+    size_t input;
 } worker_ctx;
 
 /* Per-thread state: a counter and a reader, both reused across inputs. */
@@ -84,6 +87,8 @@ static void event_release(event *e)
     tt_free(e->form);
     tt_free(e->notes);
     tt_termtable_free(e->table);
+    if (e->kind == EV_DOC)
+        tt_buf_release(&e->prepared);
 }
 
 static void slot_reset(slot *s)
@@ -120,6 +125,20 @@ static void add_problem(slot *s, const char *name, const tt_error *err, int skip
     e->name = tt_strdup(name);
     e->err = *err;
     e->skipped = skipped;
+}
+
+/* The caller's view of a counted document. */
+static tt_doc_result result_of(const event *e, size_t input)
+{
+    tt_doc_result res = {
+        .input = input, .name = e->name, .path = e->path,
+        .kind = e->doc_kind, .outer_kind = e->outer_kind,
+        .encoding = e->encoding, .type = e->type, .entity = e->entity,
+        .period = e->period, .form = e->form, .notes = e->notes,
+        .bytes = e->bytes, .stats = e->stats, .table = e->table,
+        .prepared = e->prepared.data, .prepared_len = e->prepared.len,
+    };
+    return res;
 }
 
 static tt_status on_doc(void *vctx, const tt_document *doc)
@@ -172,8 +191,15 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     e->bytes = doc->raw_len;
     e->stats = stats;
     e->table = table;
-    if (!e->name || !e->path || !e->type || !e->entity || !e->period || !e->form || !e->notes)
+    tt_buf_init(&e->prepared, 0);
+    if (!e->name || !e->path || !e->type || !e->entity || !e->period || !e->form || !e->notes) {
         s->oom = 1;
+        return TT_OK;
+    }
+    if (w->r->opt->prepare) {
+        tt_doc_result res = result_of(e, w->input);
+        e->prepare_status = w->r->opt->prepare(w->r->opt->ctx, &res, &e->prepared);
+    }
     return TT_OK;
 }
 
@@ -196,7 +222,7 @@ static void process_input(runner *r, const worker_state *ws, size_t i, slot *s)
         add_problem(s, in->path, &err, 1);
         return;
     }
-    worker_ctx w = { r, ws->counter, s };
+    worker_ctx w = { r, ws->counter, s, i };
     size_t parts_skipped = 0;
     tt_status st = tt_reader_read(ws->reader, in->path, &r->opt->read, on_doc, &w,
                                   &parts_skipped, &err);
@@ -260,13 +286,10 @@ static tt_status deliver(runner *r, slot *s, size_t i, tt_batch_summary *sum, tt
                 opt->on_problem(opt->ctx, e->name, &e->err, e->skipped);
             continue;
         }
-        tt_doc_result res = {
-            .input = i, .name = e->name, .path = e->path,
-            .kind = e->doc_kind, .outer_kind = e->outer_kind,
-            .encoding = e->encoding, .type = e->type, .entity = e->entity,
-            .period = e->period, .form = e->form, .notes = e->notes,
-            .bytes = e->bytes, .stats = e->stats, .table = e->table,
-        };
+        tt_doc_result res = result_of(e, i);
+        if (e->prepare_status)
+            return tt_error_set(err, e->prepare_status, e->name, -1, "stopped: %s",
+                                tt_status_name(e->prepare_status));
         sum->documents++;
         sum->words += e->stats.words_read;
         sum->terms += e->stats.terms_kept;

@@ -26,6 +26,8 @@ typedef struct tt_doc_result {
     uint64_t bytes;          /* decoded bytes of this document */
     tt_doc_stats stats;
     const tt_termtable *table;
+    const char *prepared;    /* what `prepare` wrote for this document */
+    size_t prepared_len;
 } tt_doc_result;
 
 typedef struct tt_batch_options {
@@ -36,6 +38,11 @@ typedef struct tt_batch_options {
     /* Called in input order, in the calling thread. Non-OK stops the batch
      * and is returned by tt_batch_run (e.g. a write error). */
     tt_status (*on_document)(void *ctx, const tt_doc_result *r);
+    /* Optional: called in the worker thread right after a document is
+     * counted, to turn its result into output bytes (appended to out) while
+     * other workers count; on_document then receives them as r->prepared.
+     * Must only read ctx. Non-OK stops the batch like on_document. */
+    tt_status (*prepare)(void *ctx, const tt_doc_result *r, tt_buf *out);
     /* A problem, in input order: skipped = 1 when the input or document was
      * not counted, 0 for a note on odd but readable input. */
     void (*on_problem)(void *ctx, const char *name, const tt_error *err, int skipped);

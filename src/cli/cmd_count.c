@@ -89,7 +89,8 @@ static tt_status flush(count_ctx *c, int force)
 
 static char rate_col[32];
 
-static tt_status begin(count_ctx *c, tt_table_writer *w)
+/* Starts a table in out; the header goes in only when `header` is set. */
+static tt_status begin(const count_ctx *c, tt_table_writer *w, tt_buf *out, int header)
 {
     const char *const *cols;
     size_t n;
@@ -98,17 +99,26 @@ static tt_status begin(count_ctx *c, tt_table_writer *w)
     case SHOW_CLASSES: cols = class_cols; n = 9; break;
     default: cols = term_cols; n = c->per ? 8 : 7; break;
     }
-    tt_status st = tt_table_begin(w, c->format, &c->buf, cols, n, c->header && !c->header_done);
-    c->header_done = 1;
-    return st;
+    return tt_table_begin(w, c->format, out, cols, n, header);
 }
 
-static tt_status write_terms(count_ctx *c, const char *doc, const tt_termtable *t)
+/* Writes the header line once, before the first rows. */
+static tt_status header_once(count_ctx *c)
+{
+    tt_table_writer w;
+    if (c->header_done || !c->header)
+        return TT_OK;
+    c->header_done = 1;
+    return begin(c, &w, &c->buf, 1);
+}
+
+static tt_status write_terms(const count_ctx *c, tt_buf *out, const char *doc,
+                             const tt_termtable *t)
 {
     tt_table_writer w;
     tt_term_entry *e = NULL;
     size_t n = 0;
-    tt_status st = begin(c, &w);
+    tt_status st = begin(c, &w, out, 0);
     if (!st)
         st = tt_termtable_sorted(t, &e, &n);
     if (st)
@@ -134,19 +144,19 @@ static tt_status write_terms(count_ctx *c, const char *doc, const tt_termtable *
         if (!st) st = tt_table_fixed(&w, cum_share, 6);
         if (!st && c->per) st = tt_table_fixed(&w, share * (double)c->per, 4);
         if (!st) st = tt_table_end_row(&w);
-        if (!st) st = flush(c, 0);
     }
     tt_free(e);
     return st;
 }
 
-static tt_status write_classes(count_ctx *c, const char *doc, const tt_termtable *t)
+static tt_status write_classes(const count_ctx *c, tt_buf *out, const char *doc,
+                               const tt_termtable *t)
 {
     tt_table_writer w;
     tt_term_entry *e = NULL;
     size_t n = 0;
     tt_count_class cls[64];
-    tt_status st = begin(c, &w);
+    tt_status st = begin(c, &w, out, 0);
     if (!st)
         st = tt_termtable_sorted(t, &e, &n);
     if (st)
@@ -173,7 +183,7 @@ static tt_status write_classes(count_ctx *c, const char *doc, const tt_termtable
         if (!st) st = tt_table_end_row(&w);
     }
     tt_free(e);
-    return st ? st : flush(c, 0);
+    return st;
 }
 
 static uint64_t hapax(const tt_termtable *t);
@@ -193,11 +203,12 @@ static uint64_t hapax(const tt_termtable *t)
     return n;
 }
 
-static tt_status write_summary(count_ctx *c, const char *doc, const char *kind, const char *type,
-                               const char *enc, const tt_doc_stats *s, const tt_termtable *t)
+static tt_status write_summary(const count_ctx *c, tt_buf *out, const char *doc,
+                               const char *kind, const char *type, const char *enc,
+                               const tt_doc_stats *s, const tt_termtable *t)
 {
     tt_table_writer w;
-    tt_status st = begin(c, &w);
+    tt_status st = begin(c, &w, out, 0);
     uint64_t distinct = tt_termtable_distinct(t), kept = tt_termtable_total(t);
     uint64_t once = hapax(t);
     if (!st) st = tt_table_cstr(&w, doc);
@@ -214,9 +225,26 @@ static tt_status write_summary(count_ctx *c, const char *doc, const char *kind, 
     if (!st) st = tt_table_u64(&w, once);
     if (!st) st = tt_table_fixed(&w, distinct ? (double)once / (double)distinct : 0.0, 6);
     if (!st) st = tt_table_end_row(&w);
-    return st ? st : flush(c, 0);
+    return st;
 }
 
+/* In a worker thread: the document's rows, formatted while others count. */
+static tt_status prepare(void *ctx, const tt_doc_result *r, tt_buf *out)
+{
+    const count_ctx *c = ctx;
+    if (c->total_only)
+        return TT_OK;
+    switch (c->show) {
+    case SHOW_TERMS: return write_terms(c, out, r->name, r->table);
+    case SHOW_CLASSES: return write_classes(c, out, r->name, r->table);
+    case SHOW_SUMMARY:
+        return write_summary(c, out, r->name, tt_doc_kind_name(r->kind), r->type, r->encoding,
+                             &r->stats, r->table);
+    }
+    return TT_OK;
+}
+
+/* In input order: merge into the total, write the prepared rows. */
 static tt_status on_document(void *ctx, const tt_doc_result *r)
 {
     count_ctx *c = ctx;
@@ -229,14 +257,10 @@ static tt_status on_document(void *ctx, const tt_doc_result *r)
     }
     if (st || c->total_only)
         return st;
-    switch (c->show) {
-    case SHOW_TERMS: return write_terms(c, r->name, r->table);
-    case SHOW_CLASSES: return write_classes(c, r->name, r->table);
-    case SHOW_SUMMARY:
-        return write_summary(c, r->name, tt_doc_kind_name(r->kind), r->type, r->encoding,
-                             &r->stats, r->table);
-    }
-    return TT_OK;
+    st = header_once(c);
+    if (!st)
+        st = tt_buf_append(&c->buf, r->prepared, r->prepared_len);
+    return st ? st : flush(c, 0);
 }
 
 enum { OPT_SHOW = CLI_OPT_FIRST_FREE, OPT_TOP, OPT_MIN_COUNT, OPT_PER, OPT_TOTAL,
@@ -334,6 +358,7 @@ int tt_cmd_count(int argc, char **argv)
     }
     cli_pipeline_hooks(&c.pipe);
     c.pipe.batch.on_document = on_document;
+    c.pipe.batch.prepare = prepare;
     c.pipe.batch.ctx = &c;
 
     tt_batch_summary sum;
@@ -341,10 +366,15 @@ int tt_cmd_count(int argc, char **argv)
     tt_error_init(&err);
     tt_status st = tt_batch_run(&inputs, &c.pipe.batch, &sum, &err);
     if (!st && c.all) {
-        switch (c.show) {
-        case SHOW_TERMS: st = write_terms(&c, "*", c.all); break;
-        case SHOW_CLASSES: st = write_classes(&c, "*", c.all); break;
-        case SHOW_SUMMARY: st = write_summary(&c, "*", "all", "", "", &c.all_stats, c.all); break;
+        st = header_once(&c);
+        if (!st) {
+            switch (c.show) {
+            case SHOW_TERMS: st = write_terms(&c, &c.buf, "*", c.all); break;
+            case SHOW_CLASSES: st = write_classes(&c, &c.buf, "*", c.all); break;
+            case SHOW_SUMMARY:
+                st = write_summary(&c, &c.buf, "*", "all", "", "", &c.all_stats, c.all);
+                break;
+            }
         }
     }
     if (!st)
