@@ -92,6 +92,46 @@ size_t tt_format_fixed(double x, int decimals, char *out)
     return n;
 }
 
+size_t tt_format_sci(double x, int digits, char *out)
+{
+    if (digits < 1)
+        digits = 1;
+    if (digits > 15)
+        digits = 15;
+    if (!isfinite(x))
+        return tt_format_fixed(x, 0, out);
+    if (x == 0) {
+        memcpy(out, "0", 2);
+        return 1;
+    }
+    double a = fabs(x);
+    int exp10 = (int)floor(log10(a));
+    if (exp10 >= -4 && exp10 < 6) {
+        int decimals = digits - 1 - exp10;
+        return tt_format_fixed(x, decimals < 0 ? 0 : decimals, out);
+    }
+    double mant = a / pow(10.0, exp10);
+    /* rounding may carry the mantissa to 10.0 */
+    double scale = pow(10.0, digits - 1);
+    if (floor(mant * scale + 0.5) >= 10.0 * scale) {
+        mant /= 10.0;
+        exp10++;
+    }
+    size_t n = 0;
+    if (x < 0)
+        out[n++] = '-';
+    n += tt_format_fixed(mant, digits - 1, out + n);
+    out[n++] = 'e';
+    out[n++] = exp10 < 0 ? '-' : '+';
+    int e = exp10 < 0 ? -exp10 : exp10;
+    if (e >= 100)
+        out[n++] = (char)('0' + e / 100);
+    out[n++] = (char)('0' + (e / 10) % 10);
+    out[n++] = (char)('0' + e % 10);
+    out[n] = '\0';
+    return n;
+}
+
 tt_status tt_table_begin(tt_table_writer *w, tt_format format, tt_buf *out,
                          const char *const *columns, size_t ncolumns, int header)
 {
@@ -240,6 +280,18 @@ tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals)
 {
     char num[40];
     size_t n = tt_format_fixed(v, decimals, num);
+    tt_status st = cell_start(w);
+    if (st)
+        return st;
+    if (w->format == TT_FORMAT_JSONL && !isfinite(v))
+        return tt_buf_puts(w->out, "null");
+    return tt_buf_append(w->out, num, n);
+}
+
+tt_status tt_table_sci(tt_table_writer *w, double v, int digits)
+{
+    char num[48];
+    size_t n = tt_format_sci(v, digits, num);
     tt_status st = cell_start(w);
     if (st)
         return st;

@@ -37,6 +37,29 @@ static void test_fixed(void **state)
     }
 }
 
+/* Scientific notation: the expected strings are what printf's %.3e and
+ * %.Nf print for these values in the C locale (worked out by hand from the
+ * definition, not taken from the code under test). */
+static void test_sci(void **state)
+{
+    (void)state;
+    char b[48];
+    tt_format_sci(0.0, 4, b);
+    assert_string_equal(b, "0");
+    tt_format_sci(1.234567e-12, 4, b);
+    assert_string_equal(b, "1.235e-12");
+    tt_format_sci(9.99996e-7, 4, b);
+    assert_string_equal(b, "1.000e-06");
+    tt_format_sci(0.012345, 3, b);
+    assert_string_equal(b, "0.0123");
+    tt_format_sci(123.456, 4, b);
+    assert_string_equal(b, "123.5");
+    tt_format_sci(-2.5e8, 2, b);
+    assert_string_equal(b, "-2.5e+08");
+    tt_format_sci(3e-300, 3, b);
+    assert_string_equal(b, "3.00e-300");
+}
+
 static const char *const cols[] = { "document", "term", "count" };
 
 static void write_rows(tt_format f, tt_buf *out)
@@ -154,6 +177,7 @@ int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_fixed),
+        cmocka_unit_test(test_sci),
         cmocka_unit_test(test_csv_roundtrip),
         cmocka_unit_test(test_jsonl_roundtrip),
         cmocka_unit_test(test_tsv_escapes),

@@ -21,6 +21,12 @@ tt_status tt_format_parse(const char *name, tt_format *out);
  * hold 40 bytes. */
 size_t tt_format_fixed(double x, int decimals, char *out);
 
+/* Writes x with `digits` significant digits: fixed notation when
+ * 1e-4 <= |x| < 1e6 (trailing zeros kept), else d.ddde-NN / d.ddde+NN; 0 is
+ * "0". Locale-free like tt_format_fixed. For p- and q-values that may be far
+ * below 1e-4. Returns the length; out must hold 48 bytes. */
+size_t tt_format_sci(double x, int digits, char *out);
+
 /* A table being written: a header of column names, then rows. */
 typedef struct tt_table_writer {
     tt_format format;
@@ -44,6 +50,7 @@ tt_status tt_table_str(tt_table_writer *w, const char *s, size_t len);
 tt_status tt_table_cstr(tt_table_writer *w, const char *s);
 tt_status tt_table_u64(tt_table_writer *w, uint64_t v);
 tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals);
+tt_status tt_table_sci(tt_table_writer *w, double v, int digits);
 /* Ends the row (newline). */
 tt_status tt_table_end_row(tt_table_writer *w);
 
