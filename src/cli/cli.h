@@ -31,6 +31,8 @@ typedef struct tt_command {
 
 int tt_cmd_count(int argc, char **argv);
 extern const char tt_help_count[];
+int tt_cmd_compare(int argc, char **argv);
+extern const char tt_help_compare[];
 
 /* The program name for messages. */
 extern const char *tt_prog;

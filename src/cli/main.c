@@ -16,6 +16,8 @@
 static const tt_command commands[] = {
     { "count", tt_cmd_count, "term-frequency tables per document or for all input",
       tt_help_count },
+    { "compare", tt_cmd_compare, "what changed between two sides or consecutive periods, "
+      "with G², Log Ratio and q-values", tt_help_compare },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
