@@ -555,7 +555,8 @@ int tt_cmd_compare(int argc, char **argv)
                 long gb = tt_series_find(&series, entity, &pb);
                 long gt = tt_series_find(&series, entity, &pt);
                 if (gb < 0 || gt < 0) {
-                    cli_note("%s: no documents for %s (skipped)", entity, gb < 0 ? tb : tg);
+                    if (!c.pipe.quiet)
+                        cli_note("%s: no documents for %s (skipped)", entity, gb < 0 ? tb : tg);
                     continue;
                 }
                 tt_termtable *a = count_group(&c, &series, docs, (size_t)gb);
@@ -588,7 +589,7 @@ int tt_cmd_compare(int argc, char **argv)
                 char tb[TT_PERIOD_TEXT_MAX], tg[TT_PERIOD_TEXT_MAX];
                 tt_period_format(&series.groups[pr->base].period, tb, sizeof tb);
                 tt_period_format(&series.groups[pr->target].period, tg, sizeof tg);
-                if (pr->gap > 0)
+                if (pr->gap > 0 && !c.pipe.quiet)
                     cli_note("%s: %s -> %s skips %ld period%s missing from the data",
                              series.groups[pr->base].entity, tb, tg, pr->gap,
                              pr->gap == 1 ? "" : "s");
