@@ -925,6 +925,12 @@ void tt_layout_release(tt_layout *l)
     tt_layout_init(l);
 }
 
+void tt_layout_clear(tt_layout *l)
+{
+    tt_layout_release(l);
+    tt_layout_init(l);
+}
+
 static tt_status layout_fail(tt_error *err, tt_status st, const char *pattern, const char *fmt,
                              const char *arg)
 {

@@ -404,6 +404,41 @@ int tt_period_consecutive(const tt_period *a, const tt_period *b)
     return tt_period_index(b) == tt_period_index(a) + 1;
 }
 
+static const char *granularity_name(tt_period_granularity g, tt_period_basis b)
+{
+    tt_period p = { g, b, 2000, g == TT_PERIOD_QUARTER, g >= TT_PERIOD_MONTH, g == TT_PERIOD_DAY };
+    return tt_period_class_name(&p);
+}
+
+tt_status tt_period_coarsen(const tt_period *p, tt_period_granularity granularity,
+                            tt_period *out, tt_error *err)
+{
+    if (!tt_period_valid(p))
+        return tt_error_set_line(err, TT_EINVAL, NULL, 0, "invalid period");
+    if (granularity == p->granularity) {
+        *out = *p;
+        return TT_OK;
+    }
+    /* Coarser means a smaller enum value (YEAR < QUARTER < MONTH < DAY);
+     * fiscal periods exist only as years and quarters. */
+    int ok = granularity >= TT_PERIOD_YEAR && granularity < p->granularity &&
+             (p->basis == TT_BASIS_CALENDAR || granularity == TT_PERIOD_YEAR);
+    if (!ok)
+        return tt_error_set_line(
+            err, TT_EINVAL, NULL, 0, "cannot turn a %s into a %s", tt_period_class_name(p),
+            granularity >= TT_PERIOD_YEAR && granularity <= TT_PERIOD_DAY
+                ? granularity_name(granularity, granularity <= TT_PERIOD_QUARTER ? p->basis
+                                                                                 : TT_BASIS_CALENDAR)
+                : "period of no known granularity");
+    tt_period c = { granularity, p->basis, p->year, 0, 0, 0 };
+    if (granularity == TT_PERIOD_QUARTER)
+        c.quarter = (p->month - 1) / 3 + 1;
+    else if (granularity == TT_PERIOD_MONTH)
+        c.month = p->month;
+    *out = c;
+    return TT_OK;
+}
+
 /* ---- series -------------------------------------------------------------- */
 
 void tt_series_options_init(tt_series_options *o)
@@ -421,6 +456,12 @@ void tt_series_release(tt_series *s)
     tt_free(s->groups);
     tt_free(s->members);
     tt_free(s->pairs);
+    tt_series_init(s);
+}
+
+void tt_series_clear(tt_series *s)
+{
+    tt_series_release(s);
     tt_series_init(s);
 }
 

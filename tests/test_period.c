@@ -453,6 +453,68 @@ static void test_class_names(void **state)
     assert_non_null(strstr(err.message, "\"fiscal-month\""));
 }
 
+/* Coarsening: the month of a day from its own fields, the calendar quarter
+ * as common practice defines it (Q1 = January to March), checked for every
+ * day of 2024 (a leap year) against Python's datetime. */
+static void test_coarsen(void **state)
+{
+    (void)state;
+    char *out = run_python(
+        "import datetime\n"
+        "d = datetime.date(2024, 1, 1)\n"
+        "while d.year == 2024:\n"
+        "  print(d.isoformat(), '%04d-%02d' % (d.year, d.month), '%04d-Q%d' % (d.year, (d.month + 2) // 3))\n"
+        "  d += datetime.timedelta(days=1)\n");
+    size_t checked = 0;
+    char *save = NULL;
+    for (char *line = strtok_r(out, "\n", &save); line; line = strtok_r(NULL, "\n", &save)) {
+        char a[16], mo[16], qu[16], t[TT_PERIOD_TEXT_MAX];
+        assert_int_equal(sscanf(line, "%15s %15s %15s", a, mo, qu), 3);
+        tt_period d = P(a), c;
+        assert_int_equal(tt_period_coarsen(&d, TT_PERIOD_MONTH, &c, NULL), TT_OK);
+        assert_string_equal(tt_period_format(&c, t, sizeof t), mo);
+        assert_int_equal(tt_period_coarsen(&d, TT_PERIOD_QUARTER, &c, NULL), TT_OK);
+        assert_string_equal(tt_period_format(&c, t, sizeof t), qu);
+        assert_int_equal(tt_period_coarsen(&d, TT_PERIOD_YEAR, &c, NULL), TT_OK);
+        assert_string_equal(tt_period_format(&c, t, sizeof t), "2024");
+        checked++;
+    }
+    assert_int_equal(checked, 366);
+    free(out);
+
+    static const struct {
+        const char *from;
+        tt_period_granularity to;
+        const char *result; /* NULL: refused with this message */
+        const char *message;
+    } cases[] = {
+        { "2024-09-30", TT_PERIOD_DAY, "2024-09-30", NULL },
+        { "2024-11", TT_PERIOD_QUARTER, "2024-Q4", NULL },
+        { "2024-Q2", TT_PERIOD_YEAR, "2024", NULL },
+        { "FY2024-Q2", TT_PERIOD_YEAR, "FY2024", NULL },
+        { "FY2024-Q2", TT_PERIOD_MONTH, NULL, "cannot turn a fiscal quarter into a month" },
+        { "2024", TT_PERIOD_QUARTER, NULL, "cannot turn a calendar year into a calendar quarter" },
+        { "FY2024", TT_PERIOD_QUARTER, NULL, "cannot turn a fiscal year into a fiscal quarter" },
+        { "2024-Q2", TT_PERIOD_NONE, NULL, "cannot turn a calendar quarter into a period" },
+    };
+    for (size_t i = 0; i < sizeof cases / sizeof cases[0]; i++) {
+        tt_period p = P(cases[i].from), c = { TT_PERIOD_NONE, TT_BASIS_CALENDAR, 1, 0, 0, 0 };
+        tt_error err;
+        tt_error_init(&err);
+        tt_status st = tt_period_coarsen(&p, cases[i].to, &c, &err);
+        if (cases[i].result) {
+            char t[TT_PERIOD_TEXT_MAX];
+            assert_int_equal(st, TT_OK);
+            assert_string_equal(tt_period_format(&c, t, sizeof t), cases[i].result);
+        } else {
+            assert_int_equal(st, TT_EINVAL);
+            assert_int_equal(c.year, 1);
+            if (!strstr(err.message, cases[i].message))
+                fail_msg("%s: %s", cases[i].from, err.message);
+        }
+    }
+}
+
 /* ---- series -------------------------------------------------------------- */
 
 static tt_doc_meta D(const char *path, const char *entity, const char *period, const char *kind)
@@ -636,6 +698,7 @@ int main(void)
         cmocka_unit_test(test_months_quarters_against_python),
         cmocka_unit_test(test_mixed_order_against_python),
         cmocka_unit_test(test_class_names),
+        cmocka_unit_test(test_coarsen),
         cmocka_unit_test(test_clash_message),
         cmocka_unit_test(test_series_groups_and_pairs),
         cmocka_unit_test(test_series_out_of_memory),

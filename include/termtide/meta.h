@@ -4,7 +4,9 @@
  * Three sources fill the same record (tt_doc_meta): a manifest file (CSV or
  * TSV, tt_manifest_load), a path layout such as '{entity}/{period}-*.htm'
  * (tt_layout_match, then tt_manifest_add), or a submission wrapper's header
- * (tt_period_parse_basic_date on its period of report, then tt_manifest_add).
+ * (tt_period_parse_basic_date on its period of report, a day, which
+ * tt_period_coarsen turns into the quarter or year a series needs, then
+ * tt_manifest_add).
  * tt_series_build then sorts documents into (entity, period) groups and the
  * pairs of neighbouring periods that `compare --consecutive` and `trend` walk.
  *
@@ -127,6 +129,17 @@ long tt_period_index(const tt_period *p);
  * 2024-02-29). 0 otherwise, and for invalid periods. */
 int tt_period_consecutive(const tt_period *a, const tt_period *b);
 
+/* The period of a coarser granularity that contains p: a calendar day →
+ * its month, calendar quarter (Q1 = January to March, common practice) or
+ * calendar year; a month → its quarter or year; a calendar quarter → its
+ * year; a fiscal quarter → its fiscal year; any period → itself. So the
+ * report date 2024-09-30 of a wrapper becomes 2024-Q3. TT_EINVAL (message
+ * 'cannot turn a fiscal quarter into a month') for a finer granularity, a
+ * fiscal period into a calendar one or the reverse, or an invalid p; *out
+ * untouched then. */
+tt_status tt_period_coarsen(const tt_period *p, tt_period_granularity granularity,
+                            tt_period *out, tt_error *err);
+
 /* ---- one document's metadata ---------------------------------------------- */
 
 /* Owned by the tt_manifest that holds it; valid until the manifest is
@@ -193,8 +206,8 @@ typedef struct tt_manifest {
 } tt_manifest;
 
 void tt_manifest_init(tt_manifest *m);
-/* Frees everything the manifest owns (documents, tags, errors); init again
- * before reuse. */
+/* Frees everything the manifest owns (documents, tags, errors); it is left
+ * initialised (empty). */
 void tt_manifest_release(tt_manifest *m);
 /* Release, then init. */
 void tt_manifest_clear(tt_manifest *m);
@@ -296,7 +309,9 @@ typedef struct tt_layout {
 } tt_layout;
 
 void tt_layout_init(tt_layout *l);
+/* Frees what the layout owns; it is left initialised (empty). */
 void tt_layout_release(tt_layout *l);
+void tt_layout_clear(tt_layout *l);
 
 /* Most tokens in one layout (TT_ELIMIT beyond); ample for any directory
  * scheme, and it bounds the matcher's memo table. */
@@ -383,7 +398,9 @@ typedef struct tt_series {
 } tt_series;
 
 void tt_series_init(tt_series *s);
+/* Frees the arrays; the series is left initialised (empty). */
 void tt_series_release(tt_series *s);
+void tt_series_clear(tt_series *s);
 
 /* Groups docs[0..n) (a manifest's docs and n) that pass the filter (opt may
  * be NULL: no filter) into s (released first). Each entity's kept documents
