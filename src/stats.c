@@ -129,7 +129,8 @@ double tt_percentile_rank(const double *x, size_t n, double v)
         below += x[i] < v;
         equal += x[i] == v;
     }
-    return ((double)below + 0.5 * (double)equal) * (100.0 / (double)n);
+    /* multiply before dividing: (n/n)·100 is exactly 100, (1/n·100)·n may not be */
+    return ((double)below + 0.5 * (double)equal) * 100.0 / (double)n;
 }
 
 double tt_z_score(const double *x, size_t n, double v)

@@ -257,6 +257,47 @@ static void test_demo_story(void **state)
     free(out);
 }
 
+/* Metadata from submission-wrapper headers: three invented quarterly
+ * filings of one company become a series of three quarters; a plain file
+ * among them is reported and left out (exit status 2). */
+static void test_headers(void **state)
+{
+    (void)state;
+    char dir[] = "/tmp/tt_headers_XXXXXX";
+    assert_non_null(mkdtemp(dir));
+    const char *dates[] = { "20250331", "20250630", "20250930" };
+    for (int i = 0; i < 3; i++) {
+        char p[256];
+        snprintf(p, sizeof p, "%s/q%d.txt", dir, i);
+        FILE *f = fopen(p, "w");
+        assert_non_null(f);
+        fprintf(f, "<SEC-DOCUMENT>\n<SEC-HEADER>\nCONFORMED SUBMISSION TYPE:\t10-Q\n"
+                   "CONFORMED PERIOD OF REPORT:\t%s\n\tCOMPANY CONFORMED NAME:\t\t\tPELLWORTH "
+                   "MARINE INC\n</SEC-HEADER>\n<DOCUMENT>\n<TYPE>10-Q\n<SEQUENCE>1\n<TEXT>\n"
+                   "Backlog grew and orders held in quarter %d.\n</TEXT>\n</DOCUMENT>\n",
+                dates[i], i);
+        fclose(f);
+    }
+    char p[256];
+    snprintf(p, sizeof p, "%s/notes.txt", dir);
+    FILE *f = fopen(p, "w");
+    fputs("plain words\n", f);
+    fclose(f);
+    char args[512];
+    snprintf(args, sizeof args,
+             "compare --headers %s --consecutive --show summary --min-count 1 --quiet", dir);
+    int st;
+    char *out = run_capture(args, &st);
+    assert_int_equal(st, 2);
+    assert_non_null(strstr(out, "PELLWORTH MARINE INC\t2025-Q1\t2025-Q2\t"));
+    assert_non_null(strstr(out, "PELLWORTH MARINE INC\t2025-Q2\t2025-Q3\t"));
+    assert_non_null(strstr(out, "notes.txt: not a submission wrapper"));
+    free(out);
+    char cmd[300];
+    snprintf(cmd, sizeof cmd, "rm -rf %s", dir);
+    assert_int_equal(system(cmd), 0);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -264,6 +305,7 @@ int main(void)
         cmocka_unit_test(test_planted_signal),
         cmocka_unit_test(test_empty_side),
         cmocka_unit_test(test_demo_story),
+        cmocka_unit_test(test_headers),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

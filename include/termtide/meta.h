@@ -289,6 +289,16 @@ const tt_doc_meta *tt_manifest_find_file(const tt_manifest *m, const char *path)
  * the manifest has no such column or i is out of range. */
 const char *tt_manifest_tag(const tt_manifest *m, size_t i, const char *name);
 
+/* Adds the metadata a submission wrapper carries in its header: entity
+ * COMPANY CONFORMED NAME, period CONFORMED PERIOD OF REPORT (a day, turned
+ * into `granularity` with tt_period_coarsen: TT_PERIOD_QUARTER gives
+ * 2024-Q3 for 20240930), kind CONFORMED SUBMISSION TYPE. Reads and decodes
+ * the file (gzip too). TT_EPARSE when the file is not a wrapper or its
+ * header lacks the name or the date; read errors as tt_source_read; the
+ * errors of tt_manifest_add. */
+tt_status tt_manifest_add_from_header(tt_manifest *m, const char *path,
+                                      tt_period_granularity granularity, tt_error *err);
+
 /* ---- path layouts: metadata from where a file sits -------------------------- */
 
 /* A compiled layout such as '{entity}/{period}-*' or

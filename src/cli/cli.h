@@ -33,6 +33,8 @@ int tt_cmd_count(int argc, char **argv);
 extern const char tt_help_count[];
 int tt_cmd_compare(int argc, char **argv);
 extern const char tt_help_compare[];
+int tt_cmd_describe(int argc, char **argv);
+extern const char tt_help_describe[];
 
 /* The program name for messages. */
 extern const char *tt_prog;

@@ -16,7 +16,8 @@ const char tt_help_compare[] =
     "Usage: termtide compare [OPTIONS] --base PATH --target PATH\n"
     "       termtide compare [OPTIONS] --manifest FILE --base PERIOD --target PERIOD\n"
     "       termtide compare [OPTIONS] --manifest FILE --consecutive\n"
-    "       termtide compare [OPTIONS] --layout PATTERN ROOT --consecutive\n"
+    "       termtide compare [OPTIONS] --layout PATTERN ROOT... --consecutive\n"
+    "       termtide compare [OPTIONS] --headers ROOT... --consecutive\n"
     "\n"
     "Measures how each term's rate changed from a base side to a target side.\n"
     "A side is a set of files and directories (--base and --target repeated), or,\n"
@@ -32,6 +33,10 @@ const char tt_help_compare[] =
     "                        kind (paths relative to the manifest)\n"
     "  --layout PATTERN      metadata from where files sit under the ROOT directories,\n"
     "                        e.g. '{entity}/{period}-{kind}.*'\n"
+    "  --headers             metadata from each submission wrapper's own header under\n"
+    "                        the ROOT paths: entity = COMPANY CONFORMED NAME, period =\n"
+    "                        CONFORMED PERIOD OF REPORT as a quarter (--header-period\n"
+    "                        year|quarter|month|day), kind = CONFORMED SUBMISSION TYPE\n"
     "  --entity NAME         only this entity\n"
     "  --kinds LIST          only these document kinds, e.g.\n"
     "                        quarterly-report,call-transcript (one series may not mix\n"
@@ -275,7 +280,7 @@ static tt_termtable *count_group(compare_ctx *c, const tt_series *s, const tt_do
 
 enum { OPT_BASE = CLI_OPT_FIRST_FREE, OPT_TARGET, OPT_CONSECUTIVE, OPT_MANIFEST, OPT_LAYOUT,
        OPT_ENTITY, OPT_KINDS, OPT_SHOW, OPT_SORT, OPT_MIN_COUNT, OPT_MAX_Q, OPT_TOP,
-       OPT_NO_HEADER };
+       OPT_NO_HEADER, OPT_HEADERS, OPT_HEADER_PERIOD };
 
 static const struct option longopts[] = {
     { "base", required_argument, NULL, OPT_BASE },
@@ -293,6 +298,8 @@ static const struct option longopts[] = {
     { "format", required_argument, NULL, 'f' },
     { "output", required_argument, NULL, 'o' },
     { "no-header", no_argument, NULL, OPT_NO_HEADER },
+    { "headers", no_argument, NULL, OPT_HEADERS },
+    { "header-period", required_argument, NULL, OPT_HEADER_PERIOD },
     { "help", no_argument, NULL, 'h' },
     CLI_PIPELINE_LONGOPTS,
     { NULL, 0, NULL, 0 }
@@ -361,6 +368,41 @@ static int load_layout(tt_manifest *m, const char *pattern, int nroots, char **r
     return ok;
 }
 
+/* Metadata from the headers of the submission wrappers under the roots; a
+ * file that is not a wrapper is reported and left out. */
+static int load_headers(compare_ctx *c, tt_manifest *m, tt_period_granularity g, int nroots,
+                        char **roots)
+{
+    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+    for (int r = 0; r < nroots; r++) {
+        tt_source_list list;
+        tt_source_list_init(&list);
+        if (tt_source_expand(&list, roots[r]) != TT_OK) {
+            cli_error("out of memory");
+            return 0;
+        }
+        for (size_t i = 0; i < list.n; i++) {
+            tt_error err;
+            tt_error_init(&err);
+            if (list.items[i].status != TT_OK) {
+                cli_error("%s: %s (skipped)", list.items[i].path,
+                          list.items[i].message ? list.items[i].message : "cannot be read");
+                c->skipped_docs++;
+            } else if (tt_manifest_add_from_header(m, list.items[i].path, g, &err)) {
+                if (err.status == TT_ENOMEM) {
+                    cli_error("out of memory");
+                    tt_source_list_release(&list);
+                    return 0;
+                }
+                cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
+                c->skipped_docs++;
+            }
+        }
+        tt_source_list_release(&list);
+    }
+    return 1;
+}
+
 int tt_cmd_compare(int argc, char **argv)
 {
     compare_ctx c;
@@ -375,7 +417,8 @@ int tt_cmd_compare(int argc, char **argv)
     char **base = NULL, **target = NULL;
     size_t nbase = 0, ntarget = 0;
     const char *output = NULL, *manifest_path = NULL, *layout = NULL;
-    int consecutive = 0, rc = TT_EXIT_TROUBLE, opt, out_open = 0;
+    int consecutive = 0, rc = TT_EXIT_TROUBLE, opt, out_open = 0, headers = 0;
+    tt_period_granularity header_period = TT_PERIOD_QUARTER;
     tt_series_options sopt;
     tt_series_options_init(&sopt);
     tt_manifest m;
@@ -438,15 +481,28 @@ int tt_cmd_compare(int argc, char **argv)
             break;
         case 'o': output = optarg; break;
         case OPT_NO_HEADER: c.header = 0; break;
+        case OPT_HEADERS: headers = 1; break;
+        case OPT_HEADER_PERIOD: {
+            tt_period_basis basis;
+            tt_error perr;
+            tt_error_init(&perr);
+            if (tt_period_class_parse(optarg, &header_period, &basis, &perr) ||
+                basis != TT_BASIS_CALENDAR) {
+                cli_error("--header-period: expected year, quarter, month or day, got '%s'",
+                          optarg);
+                goto out;
+            }
+            break;
+        }
         case 'h': fputs(tt_help_compare, stdout); rc = TT_EXIT_OK; goto out;
         default:
             fprintf(stderr, "Try 'termtide help compare'.\n");
             goto out;
         }
     }
-    int with_meta = manifest_path || layout;
-    if (manifest_path && layout) {
-        cli_error("give either --manifest or --layout, not both");
+    int with_meta = manifest_path || layout || headers;
+    if ((manifest_path != NULL) + (layout != NULL) + headers > 1) {
+        cli_error("give one of --manifest, --layout and --headers");
         goto out;
     }
     if (consecutive && !with_meta) {
@@ -465,7 +521,7 @@ int tt_cmd_compare(int argc, char **argv)
         cli_error("with metadata, --base and --target each name one period");
         goto out;
     }
-    if (!layout && optind < argc) {
+    if (!layout && !headers && optind < argc) {
         cli_error("unexpected argument '%s' (sides are given with --base and --target)",
                   argv[optind]);
         goto out;
@@ -489,6 +545,13 @@ int tt_cmd_compare(int argc, char **argv)
                 cli_error("%s: %zu more problems", manifest_path, m.errors_more);
             goto out;
         }
+    } else if (headers) {
+        if (optind >= argc) {
+            cli_error("--headers needs the ROOT files or directories to read");
+            goto out;
+        }
+        if (!load_headers(&c, &m, header_period, argc - optind, argv + optind))
+            goto out;
     } else if (layout) {
         if (optind >= argc) {
             cli_error("--layout needs the ROOT directories to walk");

@@ -18,6 +18,8 @@ static const tt_command commands[] = {
       tt_help_count },
     { "compare", tt_cmd_compare, "what changed between two sides or consecutive periods, "
       "with G², Log Ratio and q-values", tt_help_compare },
+    { "describe", tt_cmd_describe, "a term's distribution over documents or periods, and "
+      "where the latest sits", tt_help_describe },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
