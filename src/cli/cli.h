@@ -35,6 +35,8 @@ int tt_cmd_compare(int argc, char **argv);
 extern const char tt_help_compare[];
 int tt_cmd_describe(int argc, char **argv);
 extern const char tt_help_describe[];
+int tt_cmd_trend(int argc, char **argv);
+extern const char tt_help_trend[];
 
 /* The program name for messages. */
 extern const char *tt_prog;

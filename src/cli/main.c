@@ -16,10 +16,9 @@
 static const tt_command commands[] = {
     { "count", tt_cmd_count, "term-frequency tables per document or for all input",
       tt_help_count },
-    { "compare", tt_cmd_compare, "what changed between two sides or consecutive periods, "
-      "with G², Log Ratio and q-values", tt_help_compare },
-    { "describe", tt_cmd_describe, "a term's distribution over documents or periods, and "
-      "where the latest sits", tt_help_describe },
+    { "compare", tt_cmd_compare, "what changed between two sides or periods (G², Log Ratio, q)", tt_help_compare },
+    { "describe", tt_cmd_describe, "a term's distribution, and where the latest document sits", tt_help_describe },
+    { "trend", tt_cmd_trend, "terms across periods: rates, statistics, dispersion, tf-idf", tt_help_trend },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
