@@ -1,6 +1,6 @@
 /* termtide — the aggregate stage: many documents into one term table.
- * The batch runner delivers each document's table in input order and this
- * merges it; memory is the side's vocabulary plus the batch window. */
+ * The batch runner sums the documents' tables in its worker threads
+ * (tt_batch_options.total); memory is the side's vocabulary per worker. */
 #include "termtide/aggregate.h"
 #include "tt_internal.h"
 
@@ -8,12 +8,6 @@ typedef struct agg_ctx {
     tt_termtable *out;
     const tt_batch_options *user;
 } agg_ctx;
-
-static tt_status merge_document(void *vctx, const tt_doc_result *r)
-{
-    agg_ctx *a = vctx;
-    return tt_termtable_merge(a->out, r->table);
-}
 
 static void forward_problem(void *vctx, const char *name, const tt_error *err, int skipped)
 {
@@ -35,8 +29,9 @@ tt_status tt_aggregate_run(const tt_source_list *inputs, const tt_batch_options 
 {
     agg_ctx a = { out, opt };
     tt_batch_options o = *opt;
-    o.on_document = merge_document;
+    o.on_document = NULL;
     o.prepare = NULL;
+    o.total = out; /* summed in the workers */
     o.on_problem = forward_problem;
     o.on_progress = opt->on_progress ? forward_progress : NULL;
     o.ctx = &a;

@@ -55,6 +55,9 @@ typedef struct runner {
     pthread_cond_t cond_done, cond_space;
     size_t next, delivered;
     int stop;
+    tt_termtable **partials; /* one per worker thread, handed over at exit */
+    size_t n_partials;
+    tt_status total_status;  /* first failure adding to a partial table */
 } runner;
 
 typedef struct worker_ctx {
@@ -62,12 +65,17 @@ typedef struct worker_ctx {
     tt_counter *counter;
     slot *s;
     size_t input;
+    tt_termtable *partial; /* opt->total is set: this worker's running sum */
+    tt_status *partial_status; /* the first failure adding to it */
 } worker_ctx;
 
-/* Per-thread state: a counter and a reader, both reused across inputs. */
+/* Per-thread state: a counter and a reader, both reused across inputs, and
+ * the worker's partial sum when the caller asked for a total. */
 typedef struct worker_state {
     tt_counter *counter;
     tt_reader *reader;
+    tt_termtable *partial;
+    tt_status partial_status;
 } worker_state;
 
 void tt_batch_options_init(tt_batch_options *o)
@@ -196,6 +204,13 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
         s->oom = 1;
         return TT_OK;
     }
+    if (w->partial) {
+        tt_status mst = tt_termtable_merge(w->partial, table);
+        if (mst && *w->partial_status == TT_OK)
+            *w->partial_status = mst;
+        tt_termtable_free(table);
+        e->table = NULL;
+    }
     if (w->r->opt->prepare) {
         tt_doc_result res = result_of(e, w->input);
         e->prepare_status = w->r->opt->prepare(w->r->opt->ctx, &res, &e->prepared);
@@ -203,7 +218,7 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     return TT_OK;
 }
 
-static void process_input(runner *r, const worker_state *ws, size_t i, slot *s)
+static void process_input(runner *r, worker_state *ws, size_t i, slot *s)
 {
     const tt_source_entry *in = &r->inputs->items[i];
     tt_error err;
@@ -217,12 +232,12 @@ static void process_input(runner *r, const worker_state *ws, size_t i, slot *s)
     struct stat sb;
     if (strcmp(in->path, "-") != 0 && stat(in->path, &sb) == 0)
         s->bytes = (uint64_t)sb.st_size;
-    if (!ws->counter || !ws->reader) {
+    if (!ws->counter || !ws->reader || (r->opt->total && !ws->partial)) {
         tt_error_set(&err, TT_ENOMEM, in->path, -1, "out of memory");
         add_problem(s, in->path, &err, 1);
         return;
     }
-    worker_ctx w = { r, ws->counter, s, i };
+    worker_ctx w = { r, ws->counter, s, i, ws->partial, &ws->partial_status };
     size_t parts_skipped = 0;
     tt_status st = tt_reader_read(ws->reader, in->path, &r->opt->read, on_doc, &w,
                                   &parts_skipped, &err);
@@ -239,7 +254,8 @@ static void process_input(runner *r, const worker_state *ws, size_t i, slot *s)
 static void *worker_main(void *arg)
 {
     runner *r = arg;
-    worker_state ws = { tt_counter_new(&r->opt->count), tt_reader_new() };
+    worker_state ws = { tt_counter_new(&r->opt->count), tt_reader_new(),
+                        r->opt->total ? tt_termtable_new() : NULL, TT_OK };
     pthread_mutex_lock(&r->lock);
     for (;;) {
         while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)
@@ -254,6 +270,10 @@ static void *worker_main(void *arg)
         s->done = 1;
         pthread_cond_broadcast(&r->cond_done);
     }
+    if (ws.partial)
+        r->partials[r->n_partials++] = ws.partial; /* under the lock */
+    if (ws.partial_status && r->total_status == TT_OK)
+        r->total_status = ws.partial_status;
     pthread_mutex_unlock(&r->lock);
     tt_counter_free(ws.counter);
     tt_reader_free(ws.reader);
@@ -334,7 +354,8 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     tt_status st = TT_OK;
 
     if (threads == 1) {
-        worker_state ws = { tt_counter_new(&opt->count), tt_reader_new() };
+        /* One thread: documents are added straight to the caller's total. */
+        worker_state ws = { tt_counter_new(&opt->count), tt_reader_new(), opt->total, TT_OK };
         if (!ws.counter || !ws.reader) {
             tt_counter_free(ws.counter);
             tt_reader_free(ws.reader);
@@ -352,6 +373,10 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
         tt_counter_free(ws.counter);
         tt_reader_free(ws.reader);
         tt_free(r.slots);
+        r.total_status = ws.partial_status;
+        if (!st && r.total_status)
+            st = tt_error_set(err, r.total_status, NULL, -1, "%s while adding up the total",
+                              tt_status_name(r.total_status));
         return st;
     }
 
@@ -359,8 +384,9 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     pthread_cond_init(&r.cond_done, NULL);
     pthread_cond_init(&r.cond_space, NULL);
     pthread_t *tids = tt_calloc((size_t)threads, sizeof *tids);
+    r.partials = tt_calloc((size_t)threads, sizeof *r.partials);
     int started = 0;
-    if (tids)
+    if (tids && r.partials)
         for (; started < threads; started++)
             if (pthread_create(&tids[started], NULL, worker_main, &r) != 0)
                 break;
@@ -403,6 +429,15 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     for (int t = 0; t < started; t++)
         pthread_join(tids[t], NULL);
     tt_free(tids);
+    for (size_t k = 0; k < r.n_partials; k++) {
+        if (!st && r.total_status == TT_OK)
+            r.total_status = tt_termtable_merge(opt->total, r.partials[k]);
+        tt_termtable_free(r.partials[k]);
+    }
+    tt_free(r.partials);
+    if (!st && r.total_status)
+        st = tt_error_set(err, r.total_status, NULL, -1, "%s while adding up the total",
+                          tt_status_name(r.total_status));
     pthread_cond_destroy(&r.cond_space);
     pthread_cond_destroy(&r.cond_done);
     pthread_mutex_destroy(&r.lock);

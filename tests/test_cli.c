@@ -415,6 +415,21 @@ static void test_invariants_and_threads(void **state)
     assert_memory_equal(a, b, l1);
     free(a);
     free(b);
+
+    /* --total-only sums in the worker threads: the same for any count */
+    snprintf(args, sizeof args, "count --total-only --quiet -j 1 -o %s/t1.tsv %s", tmpdir, dir);
+    assert_int_equal(run(args), 0);
+    snprintf(args, sizeof args, "count --total-only --quiet -j 3 -o %s/t3.tsv %s", tmpdir, dir);
+    assert_int_equal(run(args), 0);
+    path_in(p1, sizeof p1, "t1.tsv");
+    path_in(p3, sizeof p3, "t3.tsv");
+    a = read_all(p1, &l1);
+    b = read_all(p3, &l3);
+    assert_true(l1 > 200);
+    assert_int_equal(l1, l3);
+    assert_memory_equal(a, b, l1);
+    free(a);
+    free(b);
 }
 
 static void test_usage_errors(void **state)

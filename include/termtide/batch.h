@@ -50,6 +50,14 @@ typedef struct tt_batch_options {
     void (*on_progress)(void *ctx, size_t inputs_done, size_t inputs_total,
                         uint64_t bytes_done, uint64_t bytes_total);
     void *ctx;
+    /* Optional: when set, every document's table is added to this table in
+     * the worker threads (each worker sums into a partial table of its own;
+     * the partials are added here at the end), and on_document and prepare
+     * see table == NULL. For callers that need only the sum (a total, one
+     * side of a comparison): the main thread then merges nothing. Sums do
+     * not depend on the order, so the result is the same for any thread
+     * count. */
+    tt_termtable *total;
 } tt_batch_options;
 
 void tt_batch_options_init(tt_batch_options *o);

@@ -250,7 +250,8 @@ static tt_status on_document(void *ctx, const tt_doc_result *r)
     count_ctx *c = ctx;
     tt_status st = TT_OK;
     if (c->all) {
-        st = tt_termtable_merge(c->all, r->table);
+        if (r->table) /* NULL with --total-only: summed in the workers */
+            st = tt_termtable_merge(c->all, r->table);
         c->all_stats.words_read += r->stats.words_read;
         c->all_stats.numbers += r->stats.numbers;
         c->all_stats.stopwords += r->stats.stopwords;
@@ -359,6 +360,8 @@ int tt_cmd_count(int argc, char **argv)
     cli_pipeline_hooks(&c.pipe);
     c.pipe.batch.on_document = on_document;
     c.pipe.batch.prepare = prepare;
+    if (c.total_only)
+        c.pipe.batch.total = c.all;
     c.pipe.batch.ctx = &c;
 
     tt_batch_summary sum;
