@@ -276,6 +276,8 @@ tt_status tt_table_u64(tt_table_writer *w, uint64_t v)
     return st ? st : tt_buf_append(w->out, num, n);
 }
 
+/* An undefined statistic (NaN) is the word "n/a" in TSV and CSV and null
+ * in JSON Lines, never a number-like "nan". */
 tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals)
 {
     char num[40];
@@ -285,6 +287,8 @@ tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals)
         return st;
     if (w->format == TT_FORMAT_JSONL && !isfinite(v))
         return tt_buf_puts(w->out, "null");
+    if (isnan(v))
+        return tt_buf_puts(w->out, "n/a");
     return tt_buf_append(w->out, num, n);
 }
 
@@ -297,6 +301,8 @@ tt_status tt_table_sci(tt_table_writer *w, double v, int digits)
         return st;
     if (w->format == TT_FORMAT_JSONL && !isfinite(v))
         return tt_buf_puts(w->out, "null");
+    if (isnan(v))
+        return tt_buf_puts(w->out, "n/a");
     return tt_buf_append(w->out, num, n);
 }
 

@@ -49,6 +49,8 @@ tt_status tt_table_begin(tt_table_writer *w, tt_format format, tt_buf *out,
 tt_status tt_table_str(tt_table_writer *w, const char *s, size_t len);
 tt_status tt_table_cstr(tt_table_writer *w, const char *s);
 tt_status tt_table_u64(tt_table_writer *w, uint64_t v);
+/* NaN (an undefined statistic) is written "n/a" in TSV and CSV, null in
+ * JSON Lines. */
 tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals);
 tt_status tt_table_sci(tt_table_writer *w, double v, int digits);
 /* Ends the row (newline). */
