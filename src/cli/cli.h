@@ -9,6 +9,7 @@
 #include <stdio.h>
 
 #include "termtide/batch.h"
+#include "termtide/meta.h"
 #include "termtide/output.h"
 #include "termtide/source.h"
 #include "termtide/status.h"
@@ -115,5 +116,15 @@ void cli_pipeline_hooks(cli_pipeline *p);
 /* Prints the closing one-line summary on stderr (unless quiet). */
 void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s);
 double cli_now(void);
+
+/* Document metadata (meta_cli.c); each prints its problems and returns 0 on
+ * failure. Headers: a root that is not a submission wrapper is reported,
+ * counted in *skipped and left out. */
+int cli_load_manifest(tt_manifest *m, const char *path);
+int cli_load_layout(tt_manifest *m, const char *pattern, int nroots, char **roots);
+int cli_load_headers(tt_manifest *m, tt_period_granularity g, int nroots, char **roots,
+                     size_t *skipped);
+/* Parses --header-period year|quarter|month|day. */
+int cli_header_period(const char *arg, tt_period_granularity *out);
 
 #endif

@@ -328,81 +328,6 @@ static int add_arg(char ***list, size_t *n, char *arg)
     return 1;
 }
 
-/* Metadata from a layout over the files under the roots. */
-static int load_layout(tt_manifest *m, const char *pattern, int nroots, char **roots)
-{
-    tt_layout l;
-    tt_layout_init(&l);
-    tt_error err;
-    tt_error_init(&err);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-    if (tt_layout_compile(&l, pattern, &err)) {
-        cli_error("--layout: %s", tt_error_format(&err, msg, sizeof msg));
-        tt_layout_release(&l);
-        return 0;
-    }
-    int ok = 1;
-    for (int r = 0; r < nroots && ok; r++) {
-        tt_source_list list;
-        tt_source_list_init(&list);
-        if (tt_source_expand(&list, roots[r]) != TT_OK) {
-            cli_error("out of memory");
-            ok = 0;
-        }
-        for (size_t i = 0; ok && i < list.n; i++) {
-            tt_layout_fields f;
-            if (list.items[i].status != TT_OK) {
-                cli_error("%s: %s", list.items[i].path,
-                          list.items[i].message ? list.items[i].message : "cannot be read");
-                ok = 0;
-            } else if (tt_layout_match(&l, roots[r], list.items[i].path, &f, &err) ||
-                       tt_manifest_add(m, list.items[i].path, f.entity, &f.period, f.kind,
-                                       &err)) {
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-                ok = 0;
-            }
-        }
-        tt_source_list_release(&list);
-    }
-    tt_layout_release(&l);
-    return ok;
-}
-
-/* Metadata from the headers of the submission wrappers under the roots; a
- * file that is not a wrapper is reported and left out. */
-static int load_headers(compare_ctx *c, tt_manifest *m, tt_period_granularity g, int nroots,
-                        char **roots)
-{
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-    for (int r = 0; r < nroots; r++) {
-        tt_source_list list;
-        tt_source_list_init(&list);
-        if (tt_source_expand(&list, roots[r]) != TT_OK) {
-            cli_error("out of memory");
-            return 0;
-        }
-        for (size_t i = 0; i < list.n; i++) {
-            tt_error err;
-            tt_error_init(&err);
-            if (list.items[i].status != TT_OK) {
-                cli_error("%s: %s (skipped)", list.items[i].path,
-                          list.items[i].message ? list.items[i].message : "cannot be read");
-                c->skipped_docs++;
-            } else if (tt_manifest_add_from_header(m, list.items[i].path, g, &err)) {
-                if (err.status == TT_ENOMEM) {
-                    cli_error("out of memory");
-                    tt_source_list_release(&list);
-                    return 0;
-                }
-                cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
-                c->skipped_docs++;
-            }
-        }
-        tt_source_list_release(&list);
-    }
-    return 1;
-}
-
 int tt_cmd_compare(int argc, char **argv)
 {
     compare_ctx c;
@@ -482,18 +407,10 @@ int tt_cmd_compare(int argc, char **argv)
         case 'o': output = optarg; break;
         case OPT_NO_HEADER: c.header = 0; break;
         case OPT_HEADERS: headers = 1; break;
-        case OPT_HEADER_PERIOD: {
-            tt_period_basis basis;
-            tt_error perr;
-            tt_error_init(&perr);
-            if (tt_period_class_parse(optarg, &header_period, &basis, &perr) ||
-                basis != TT_BASIS_CALENDAR) {
-                cli_error("--header-period: expected year, quarter, month or day, got '%s'",
-                          optarg);
+        case OPT_HEADER_PERIOD:
+            if (!cli_header_period(optarg, &header_period))
                 goto out;
-            }
             break;
-        }
         case 'h': fputs(tt_help_compare, stdout); rc = TT_EXIT_OK; goto out;
         default:
             fprintf(stderr, "Try 'termtide help compare'.\n");
@@ -533,31 +450,13 @@ int tt_cmd_compare(int argc, char **argv)
     c.pipe.progress = 0; /* several batches: a per-batch progress line would mislead */
 
     if (manifest_path) {
-        tt_error err;
-        tt_error_init(&err);
-        if (tt_manifest_load(&m, manifest_path, 0, &err)) {
-            if (m.n_errors)
-                for (size_t i = 0; i < m.n_errors; i++)
-                    cli_error("%s", tt_error_format(&m.errors[i], msg, sizeof msg));
-            else
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-            if (m.errors_more)
-                cli_error("%s: %zu more problems", manifest_path, m.errors_more);
+        if (!cli_load_manifest(&m, manifest_path))
             goto out;
-        }
     } else if (headers) {
-        if (optind >= argc) {
-            cli_error("--headers needs the ROOT files or directories to read");
-            goto out;
-        }
-        if (!load_headers(&c, &m, header_period, argc - optind, argv + optind))
+        if (!cli_load_headers(&m, header_period, argc - optind, argv + optind, &c.skipped_docs))
             goto out;
     } else if (layout) {
-        if (optind >= argc) {
-            cli_error("--layout needs the ROOT directories to walk");
-            goto out;
-        }
-        if (!load_layout(&m, layout, argc - optind, argv + optind))
+        if (!cli_load_layout(&m, layout, argc - optind, argv + optind))
             goto out;
     }
 

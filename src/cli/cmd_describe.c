@@ -37,6 +37,9 @@ const char tt_help_describe[] =
     "                        last document read is the latest)\n"
     "  --manifest FILE       metadata: a CSV or TSV with columns path, entity, period,\n"
     "                        kind (paths relative to the manifest)\n"
+    "  --headers             metadata from each submission wrapper's own header under\n"
+    "                        the ROOT paths (entity, period of report as a quarter or\n"
+    "                        --header-period year|month|day, submission type as kind)\n"
     "  --layout PATTERN      metadata from where files sit under the ROOT directories,\n"
     "                        e.g. '{entity}/{period}-{kind}.*'\n"
     "  --period P            only documents of period P: 2025, 2025-Q3, 2025-09,\n"
@@ -272,45 +275,6 @@ static tt_status write_correlation(describe_ctx *c, tt_format format, int header
 
 /* ---- selecting documents ------------------------------------------------------ */
 
-/* Metadata from a layout over the files under the roots. */
-static int load_layout(tt_manifest *m, const char *pattern, int nroots, char **roots)
-{
-    tt_layout l;
-    tt_layout_init(&l);
-    tt_error err;
-    tt_error_init(&err);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-    if (tt_layout_compile(&l, pattern, &err)) {
-        cli_error("--layout: %s", tt_error_format(&err, msg, sizeof msg));
-        tt_layout_release(&l);
-        return 0;
-    }
-    int ok = 1;
-    for (int r = 0; r < nroots && ok; r++) {
-        tt_source_list list;
-        tt_source_list_init(&list);
-        if (tt_source_expand(&list, roots[r]) != TT_OK) {
-            cli_error("out of memory");
-            ok = 0;
-        }
-        for (size_t i = 0; ok && i < list.n; i++) {
-            tt_layout_fields f;
-            if (list.items[i].status != TT_OK) {
-                cli_error("%s: %s", list.items[i].path,
-                          list.items[i].message ? list.items[i].message : "cannot be read");
-                ok = 0;
-            } else if (tt_layout_match(&l, roots[r], list.items[i].path, &f, &err) ||
-                       tt_manifest_add(m, list.items[i].path, f.entity, &f.period, f.kind,
-                                       &err)) {
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-                ok = 0;
-            }
-        }
-        tt_source_list_release(&list);
-    }
-    tt_layout_release(&l);
-    return ok;
-}
 
 /* Period order, then entity, then manifest order: the last is the latest. */
 static int by_period_order(const void *pa, const void *pb)
@@ -337,7 +301,7 @@ static int parse_period(const char *opt, const char *arg, tt_period *out)
     return 1;
 }
 
-enum { OPT_TERM = CLI_OPT_FIRST_FREE, OPT_MANIFEST, OPT_LAYOUT, OPT_PERIOD, OPT_ENTITY,
+enum { OPT_TERM = CLI_OPT_FIRST_FREE, OPT_MANIFEST, OPT_LAYOUT, OPT_HEADERS, OPT_HEADER_PERIOD, OPT_PERIOD, OPT_ENTITY,
        OPT_UNTIL, OPT_KINDS, OPT_BY_PERIOD, OPT_SHOW, OPT_TRIM, OPT_PERCENTILES, OPT_DECIMALS,
        OPT_NO_HEADER };
 
@@ -345,6 +309,8 @@ static const struct option longopts[] = {
     { "term", required_argument, NULL, OPT_TERM },
     { "manifest", required_argument, NULL, OPT_MANIFEST },
     { "layout", required_argument, NULL, OPT_LAYOUT },
+    { "headers", no_argument, NULL, OPT_HEADERS },
+    { "header-period", required_argument, NULL, OPT_HEADER_PERIOD },
     { "period", required_argument, NULL, OPT_PERIOD },
     { "entity", required_argument, NULL, OPT_ENTITY },
     { "until", required_argument, NULL, OPT_UNTIL },
@@ -382,6 +348,9 @@ int tt_cmd_describe(int argc, char **argv)
     const char **terms = NULL;
     size_t nterms = 0;
     const char *output = NULL, *manifest_path = NULL, *layout = NULL;
+    int headers = 0;
+    size_t header_skipped = 0;
+    tt_period_granularity header_period = TT_PERIOD_QUARTER;
     const char *period_arg = NULL, *until_arg = NULL;
     show_kind show = SHOW_STATS;
     tt_format format = TT_FORMAT_TSV;
@@ -419,6 +388,11 @@ int tt_cmd_describe(int argc, char **argv)
             break;
         case OPT_MANIFEST: manifest_path = optarg; break;
         case OPT_LAYOUT: layout = optarg; break;
+        case OPT_HEADERS: headers = 1; break;
+        case OPT_HEADER_PERIOD:
+            if (!cli_header_period(optarg, &header_period))
+                goto out;
+            break;
         case OPT_PERIOD: period_arg = optarg; break;
         case OPT_ENTITY: sopt.entity = optarg; break;
         case OPT_UNTIL: until_arg = optarg; break;
@@ -475,7 +449,7 @@ int tt_cmd_describe(int argc, char **argv)
     for (size_t i = 0; i < n_pcts; i++)
         snprintf(pct_names[i], sizeof pct_names[i], "p%g", pcts[i]);
 
-    int with_meta = manifest_path || layout;
+    int with_meta = manifest_path || layout || headers;
     if (nterms == 0) {
         cli_error("give a term to describe with --term WORD");
         goto out;
@@ -484,8 +458,8 @@ int tt_cmd_describe(int argc, char **argv)
         cli_error("--show correlation needs two or more --term");
         goto out;
     }
-    if (manifest_path && layout) {
-        cli_error("give either --manifest or --layout, not both");
+    if ((manifest_path != NULL) + (layout != NULL) + headers > 1) {
+        cli_error("give one of --manifest, --layout and --headers");
         goto out;
     }
     if (!with_meta && (period_arg || until_arg || sopt.entity || sopt.kinds || c.by_period)) {
@@ -520,24 +494,13 @@ int tt_cmd_describe(int argc, char **argv)
     }
 
     if (manifest_path) {
-        tt_error err;
-        tt_error_init(&err);
-        if (tt_manifest_load(&m, manifest_path, 0, &err)) {
-            if (m.n_errors)
-                for (size_t i = 0; i < m.n_errors; i++)
-                    cli_error("%s", tt_error_format(&m.errors[i], msg, sizeof msg));
-            else
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-            if (m.errors_more)
-                cli_error("%s: %zu more problems", manifest_path, m.errors_more);
+        if (!cli_load_manifest(&m, manifest_path))
             goto out;
-        }
+    } else if (headers) {
+        if (!cli_load_headers(&m, header_period, argc - optind, argv + optind, &header_skipped))
+            goto out;
     } else if (layout) {
-        if (optind >= argc) {
-            cli_error("--layout needs the ROOT directories to walk");
-            goto out;
-        }
-        if (!load_layout(&m, layout, argc - optind, argv + optind))
+        if (!cli_load_layout(&m, layout, argc - optind, argv + optind))
             goto out;
     }
 
@@ -627,7 +590,7 @@ int tt_cmd_describe(int argc, char **argv)
     }
     out_open = 0;
     cli_pipeline_summary(&c.pipe, "describe", &sum);
-    rc = sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
+    rc = (sum.skipped || header_skipped) ? TT_EXIT_TROUBLE : TT_EXIT_OK;
     goto out;
 oom:
     cli_error("out of memory");

@@ -28,6 +28,9 @@ const char tt_help_trend[] =
     "Series:\n"
     "  --manifest FILE       metadata: a CSV or TSV with columns path, entity, period,\n"
     "                        kind (paths relative to the manifest)\n"
+    "  --headers             metadata from each submission wrapper's own header under\n"
+    "                        the ROOT paths (entity, period of report as a quarter or\n"
+    "                        --header-period year|month|day, submission type as kind)\n"
     "  --layout PATTERN      metadata from where files sit under the ROOT directories,\n"
     "                        e.g. '{entity}/{period}-{kind}.*'\n"
     "  --entity NAME         only this entity\n"
@@ -669,12 +672,14 @@ out:
     return st;
 }
 
-enum { OPT_MANIFEST = CLI_OPT_FIRST_FREE, OPT_LAYOUT, OPT_ENTITY, OPT_KINDS, OPT_TERMS,
+enum { OPT_MANIFEST = CLI_OPT_FIRST_FREE, OPT_LAYOUT, OPT_HEADERS, OPT_HEADER_PERIOD, OPT_ENTITY, OPT_KINDS, OPT_TERMS,
        OPT_TERMS_FILE, OPT_TOP_MOVERS, OPT_MIN_COUNT, OPT_SHOW, OPT_NO_HEADER };
 
 static const struct option longopts[] = {
     { "manifest", required_argument, NULL, OPT_MANIFEST },
     { "layout", required_argument, NULL, OPT_LAYOUT },
+    { "headers", no_argument, NULL, OPT_HEADERS },
+    { "header-period", required_argument, NULL, OPT_HEADER_PERIOD },
     { "entity", required_argument, NULL, OPT_ENTITY },
     { "kinds", required_argument, NULL, OPT_KINDS },
     { "terms", required_argument, NULL, OPT_TERMS },
@@ -690,45 +695,6 @@ static const struct option longopts[] = {
     { NULL, 0, NULL, 0 }
 };
 
-/* Metadata from a layout over the files under the roots. */
-static int load_layout(tt_manifest *m, const char *pattern, int nroots, char **roots)
-{
-    tt_layout l;
-    tt_layout_init(&l);
-    tt_error err;
-    tt_error_init(&err);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-    if (tt_layout_compile(&l, pattern, &err)) {
-        cli_error("--layout: %s", tt_error_format(&err, msg, sizeof msg));
-        tt_layout_release(&l);
-        return 0;
-    }
-    int ok = 1;
-    for (int r = 0; r < nroots && ok; r++) {
-        tt_source_list list;
-        tt_source_list_init(&list);
-        if (tt_source_expand(&list, roots[r]) != TT_OK) {
-            cli_error("out of memory");
-            ok = 0;
-        }
-        for (size_t i = 0; ok && i < list.n; i++) {
-            tt_layout_fields f;
-            if (list.items[i].status != TT_OK) {
-                cli_error("%s: %s", list.items[i].path,
-                          list.items[i].message ? list.items[i].message : "cannot be read");
-                ok = 0;
-            } else if (tt_layout_match(&l, roots[r], list.items[i].path, &f, &err) ||
-                       tt_manifest_add(m, list.items[i].path, f.entity, &f.period, f.kind,
-                                       &err)) {
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-                ok = 0;
-            }
-        }
-        tt_source_list_release(&list);
-    }
-    tt_layout_release(&l);
-    return ok;
-}
 
 int tt_cmd_trend(int argc, char **argv)
 {
@@ -742,6 +708,8 @@ int tt_cmd_trend(int argc, char **argv)
     tt_buf_init(&c.buf, 0);
     tt_error_init(&c.err);
     const char *output = NULL, *manifest_path = NULL, *layout = NULL;
+    int headers = 0;
+    tt_period_granularity header_period = TT_PERIOD_QUARTER;
     const char *terms_list = NULL, *terms_file = NULL;
     int rc = TT_EXIT_TROUBLE, opt, out_open = 0, movers_given = 0;
     tt_series_options sopt;
@@ -758,7 +726,6 @@ int tt_cmd_trend(int argc, char **argv)
     size_t *input_group = NULL, *doc_group = NULL;
     period_cols pc;
     memset(&pc, 0, sizeof pc);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
 
     optind = 1;
     while ((opt = getopt_long(argc, argv, "f:o:j:qh", longopts, NULL)) != -1) {
@@ -770,6 +737,11 @@ int tt_cmd_trend(int argc, char **argv)
         switch (opt) {
         case OPT_MANIFEST: manifest_path = optarg; break;
         case OPT_LAYOUT: layout = optarg; break;
+        case OPT_HEADERS: headers = 1; break;
+        case OPT_HEADER_PERIOD:
+            if (!cli_header_period(optarg, &header_period))
+                goto out;
+            break;
         case OPT_ENTITY: sopt.entity = optarg; break;
         case OPT_KINDS: sopt.kinds = optarg; break;
         case OPT_TERMS: terms_list = optarg; break;
@@ -807,19 +779,20 @@ int tt_cmd_trend(int argc, char **argv)
             goto out;
         }
     }
-    if (manifest_path && layout) {
-        cli_error("give either --manifest or --layout, not both");
+    if ((manifest_path != NULL) + (layout != NULL) + headers > 1) {
+        cli_error("give one of --manifest, --layout and --headers");
         goto out;
     }
-    if (!manifest_path && !layout) {
-        cli_error("trend needs document metadata: --manifest FILE or --layout PATTERN ROOT");
+    if (!manifest_path && !layout && !headers) {
+        cli_error("trend needs document metadata: --manifest FILE, --layout PATTERN ROOT or "
+                  "--headers ROOT");
         goto out;
     }
     if ((terms_list || terms_file) && movers_given) {
         cli_error("--top-movers replaces a term list: give one or the other");
         goto out;
     }
-    if (!layout && optind < argc) {
+    if (!layout && !headers && optind < argc) {
         cli_error("unexpected argument '%s' (documents come from --manifest)", argv[optind]);
         goto out;
     }
@@ -839,24 +812,13 @@ int tt_cmd_trend(int argc, char **argv)
     }
 
     if (manifest_path) {
-        tt_error err;
-        tt_error_init(&err);
-        if (tt_manifest_load(&m, manifest_path, 0, &err)) {
-            if (m.n_errors)
-                for (size_t i = 0; i < m.n_errors; i++)
-                    cli_error("%s", tt_error_format(&m.errors[i], msg, sizeof msg));
-            else
-                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-            if (m.errors_more)
-                cli_error("%s: %zu more problems", manifest_path, m.errors_more);
+        if (!cli_load_manifest(&m, manifest_path))
             goto out;
-        }
+    } else if (headers) {
+        if (!cli_load_headers(&m, header_period, argc - optind, argv + optind, &c.skipped_docs))
+            goto out;
     } else {
-        if (optind >= argc) {
-            cli_error("--layout needs the ROOT directories to walk");
-            goto out;
-        }
-        if (!load_layout(&m, layout, argc - optind, argv + optind))
+        if (!cli_load_layout(&m, layout, argc - optind, argv + optind))
             goto out;
     }
     {
