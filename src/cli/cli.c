@@ -266,3 +266,20 @@ void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summa
             (unsigned long long)s->words, (unsigned long long)s->terms, (double)s->bytes / 1e6,
             secs);
 }
+
+tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force)
+{
+    if (!force && buf->len < (1u << 20))
+        return TT_OK;
+    tt_status st = tt_outfile_write(out, buf->data, buf->len, err);
+    tt_buf_reset(buf);
+    return st;
+}
+
+int cli_parse_format(const char *arg, tt_format *out)
+{
+    if (tt_format_parse(arg, out) == TT_OK)
+        return 1;
+    cli_error("--format: expected tsv, csv or jsonl, got '%s'", arg);
+    return 0;
+}

@@ -117,6 +117,12 @@ void cli_pipeline_hooks(cli_pipeline *p);
 void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s);
 double cli_now(void);
 
+/* Writes buf to out when it holds 1 MiB or more, or always with force;
+ * empties buf. TT_EIO with err filled on a write error. */
+tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force);
+/* Parses --format tsv|csv|jsonl; prints the error and returns 0 if bad. */
+int cli_parse_format(const char *arg, tt_format *out);
+
 /* Document metadata (meta_cli.c); each prints its problems and returns 0 on
  * failure. Headers: a root that is not a submission wrapper is reported,
  * counted in *skipped and left out. */

@@ -108,11 +108,7 @@ static const char *const summary_cols[] = {
 
 static tt_status flush(compare_ctx *c, int force)
 {
-    if (!force && c->buf.len < (1u << 20))
-        return TT_OK;
-    tt_status st = tt_outfile_write(&c->out, c->buf.data, c->buf.len, &c->err);
-    tt_buf_reset(&c->buf);
-    return st;
+    return cli_flush(&c->out, &c->buf, &c->err, force);
 }
 
 static tt_status write_result(compare_ctx *c, const char *entity, const char *base,
@@ -399,10 +395,8 @@ int tt_cmd_compare(int argc, char **argv)
             if (!cli_parse_u64("--top", optarg, 1, UINT64_MAX, &c.top)) goto out;
             break;
         case 'f':
-            if (tt_format_parse(optarg, &c.format)) {
-                cli_error("--format: expected tsv, csv or jsonl, got '%s'", optarg);
+            if (!cli_parse_format(optarg, &c.format))
                 goto out;
-            }
             break;
         case 'o': output = optarg; break;
         case OPT_NO_HEADER: c.header = 0; break;

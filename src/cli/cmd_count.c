@@ -80,11 +80,7 @@ static const char *const class_cols[] = { "document", "class", "lower", "upper",
 
 static tt_status flush(count_ctx *c, int force)
 {
-    if (!force && c->buf.len < (1u << 20))
-        return TT_OK;
-    tt_status st = tt_outfile_write(&c->out, c->buf.data, c->buf.len, &c->err);
-    tt_buf_reset(&c->buf);
-    return st;
+    return cli_flush(&c->out, &c->buf, &c->err, force);
 }
 
 static char rate_col[32];
@@ -328,10 +324,8 @@ int tt_cmd_count(int argc, char **argv)
         case OPT_TOTAL_ONLY: c.total = c.total_only = 1; break;
         case OPT_NO_HEADER: c.header = 0; break;
         case 'f':
-            if (tt_format_parse(optarg, &c.format)) {
-                cli_error("--format: expected tsv, csv or jsonl, got '%s'", optarg);
+            if (!cli_parse_format(optarg, &c.format))
                 goto out;
-            }
             break;
         case 'o': output = optarg; break;
         case 'h': fputs(tt_help_count, stdout); rc = TT_EXIT_OK; goto out;

@@ -433,10 +433,8 @@ int tt_cmd_describe(int argc, char **argv)
             if (!cli_parse_u64("--decimals", optarg, 0, 17, &decimals)) goto out;
             break;
         case 'f':
-            if (tt_format_parse(optarg, &format)) {
-                cli_error("--format: expected tsv, csv or jsonl, got '%s'", optarg);
+            if (!cli_parse_format(optarg, &format))
                 goto out;
-            }
             break;
         case 'o': output = optarg; break;
         case OPT_NO_HEADER: header = 0; break;

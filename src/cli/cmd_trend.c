@@ -136,11 +136,7 @@ static const char *const tfidf_cols[] = { "entity", "period", "document", "term"
 
 static tt_status flush(trend_ctx *c, int force)
 {
-    if (!force && c->buf.len < (1u << 20))
-        return TT_OK;
-    tt_status st = tt_outfile_write(&c->out, c->buf.data, c->buf.len, &c->err);
-    tt_buf_reset(&c->buf);
-    return st;
+    return cli_flush(&c->out, &c->buf, &c->err, force);
 }
 
 /* Adds a normalized term to the user's list (once) and returns its index, or
@@ -766,10 +762,8 @@ int tt_cmd_trend(int argc, char **argv)
             }
             break;
         case 'f':
-            if (tt_format_parse(optarg, &c.format)) {
-                cli_error("--format: expected tsv, csv or jsonl, got '%s'", optarg);
+            if (!cli_parse_format(optarg, &c.format))
                 goto out;
-            }
             break;
         case 'o': output = optarg; break;
         case OPT_NO_HEADER: c.header = 0; break;
