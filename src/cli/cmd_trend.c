@@ -85,6 +85,7 @@ const char tt_help_trend[] =
     "                        measure 'count' rows: joint counts, then a '(total)' row\n"
     "                        of column totals; measure 'share' rows: count / the grand\n"
     "                        total of the entity's table, and its '(total)' row\n"
+    "  --tfidf, --table      the same as --show tfidf and --show table\n"
     "  -f, --format tsv|csv|jsonl   -o, --output FILE   --no-header\n"
     "\n"
     CLI_PIPELINE_HELP
@@ -669,7 +670,8 @@ out:
 }
 
 enum { OPT_MANIFEST = CLI_OPT_FIRST_FREE, OPT_LAYOUT, OPT_HEADERS, OPT_HEADER_PERIOD, OPT_ENTITY, OPT_KINDS, OPT_TERMS,
-       OPT_TERMS_FILE, OPT_TOP_MOVERS, OPT_MIN_COUNT, OPT_SHOW, OPT_NO_HEADER };
+       OPT_TERMS_FILE, OPT_TOP_MOVERS, OPT_MIN_COUNT, OPT_SHOW, OPT_NO_HEADER, OPT_TFIDF,
+       OPT_TABLE };
 
 static const struct option longopts[] = {
     { "manifest", required_argument, NULL, OPT_MANIFEST },
@@ -683,6 +685,8 @@ static const struct option longopts[] = {
     { "top-movers", required_argument, NULL, OPT_TOP_MOVERS },
     { "min-count", required_argument, NULL, OPT_MIN_COUNT },
     { "show", required_argument, NULL, OPT_SHOW },
+    { "tfidf", no_argument, NULL, OPT_TFIDF },
+    { "table", no_argument, NULL, OPT_TABLE },
     { "format", required_argument, NULL, 'f' },
     { "output", required_argument, NULL, 'o' },
     { "no-header", no_argument, NULL, OPT_NO_HEADER },
@@ -749,6 +753,8 @@ int tt_cmd_trend(int argc, char **argv)
         case OPT_MIN_COUNT:
             if (!cli_parse_u64("--min-count", optarg, 1, UINT64_MAX, &c.min_count)) goto out;
             break;
+        case OPT_TFIDF: c.show = SHOW_TFIDF; break;
+        case OPT_TABLE: c.show = SHOW_TABLE; break;
         case OPT_SHOW:
             if (!strcmp(optarg, "rates")) c.show = SHOW_RATES;
             else if (!strcmp(optarg, "stats")) c.show = SHOW_STATS;
