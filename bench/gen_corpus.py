@@ -24,7 +24,7 @@ corpus cheap; the vocabulary depends on --seed only.
 Usage: gen_corpus.py [--html] [--seed 7] [--doc-mb 0.5] [--jobs 2] --docs N OUTDIR
        gen_corpus.py [--html] [--seed 7] --single --mb 20 OUTFILE
 Writes OUTDIR/doc-00001.txt (or .htm) ... doc-N, each about --doc-mb MB.
-Nothing it writes is committed (bench/work/ is ignored by git).
+Nothing it writes is committed (bench/scratch/ is ignored by git).
 """
 import argparse
 import bisect

@@ -250,8 +250,8 @@ def main():
         raise SystemExit(f"no termtide program at {tt}: run make in the repository root first")
     # The whole run uses one copy of the program, so a rebuild in the tree
     # during the run cannot mix two versions in one table.
-    os.makedirs(os.path.join(HERE, "work", "bin"), exist_ok=True)
-    snap = os.path.join(HERE, "work", "bin", "termtide")
+    os.makedirs(os.path.join(HERE, "scratch", "bin"), exist_ok=True)
+    snap = os.path.join(HERE, "scratch", "bin", "termtide")
     shutil.copy2(tt, snap + ".part")
     os.replace(snap + ".part", snap)
     tt_src, tt = tt, snap
@@ -260,7 +260,7 @@ def main():
     dirty = first_line(f"git -C {shlex.quote(repo)} status --porcelain src include | wc -l")
     html_mb = a.html_mb or a.mb
     scales = [float(s) for s in a.scales.split(",") if s.strip()]
-    work = os.path.join(HERE, "work")
+    work = os.path.join(HERE, "scratch")
     out = os.path.join(work, "out")
     os.makedirs(out, exist_ok=True)
     cor = Corpora(work, a.seed, a.doc_mb)
@@ -469,7 +469,7 @@ def main():
     lines.append(f"- Versions: {first_line(q(tt) + ' --version')}; {first_line(PY + ' --version')}; "
                  f"scikit-learn {skl}; {first_line('wc --version')}; "
                  f"{first_line('valgrind --version')}")
-    lines.append(f"- Program: {tt_src} (copied to bench/work/bin/ for the run), built from commit {rev}"
+    lines.append(f"- Program: {tt_src} (copied to bench/scratch/bin/ for the run), built from commit {rev}"
                  + (f" with {dirty} changed or new files in src/ and include/ not yet committed"
                     if dirty not in ("0", "?") else ""))
     lines.append(f"- Command: `{a.command or 'make bench'}` → `{' '.join(sys.argv)}`")
@@ -479,7 +479,7 @@ def main():
     lines.append(f"- Load average (1 min) at the start {load0}, at the end {os.getloadavg()[0]:.2f}: "
                  "other work on the machine slows wall times (the CPU column and callgrind less so).")
     lines.append(f"- Took {elapsed / 60:.1f} min in all, of which {gen_s / 60:.1f} min generating "
-                 f"corpora (0 when they were already under bench/work/).")
+                 f"corpora (0 when they were already under bench/scratch/).")
     lines.append("")
     lines.append("Wall seconds (median, min, max), MB/s on the median, CPU seconds (user + system, "
                  "median), peak RSS, and how many times longer than termtide each takes "

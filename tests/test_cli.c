@@ -81,7 +81,7 @@ static char *err_text(void)
 static int setup(void **state)
 {
     (void)state;
-    snprintf(tmpdir, sizeof tmpdir, "/tmp/tt_cli_XXXXXX");
+    snprintf(tmpdir, sizeof tmpdir, TT_TEST_TMP "tt_cli_XXXXXX");
     return mkdtemp(tmpdir) ? 0 : -1;
 }
 

@@ -49,7 +49,7 @@ static void test_against_scipy(void **state)
     assert_true(r.n > 100);
     assert_true(r.new_terms >= 1 && r.gone_terms >= 1);
 
-    char path[] = "/tmp/tt_compare_XXXXXX";
+    char path[] = TT_TEST_TMP "tt_compare_XXXXXX";
     int fd = mkstemp(path);
     assert_true(fd >= 0);
     FILE *f = fdopen(fd, "w");
@@ -263,7 +263,7 @@ static void test_demo_story(void **state)
 static void test_headers(void **state)
 {
     (void)state;
-    char dir[] = "/tmp/tt_headers_XXXXXX";
+    char dir[] = TT_TEST_TMP "tt_headers_XXXXXX";
     assert_non_null(mkdtemp(dir));
     const char *dates[] = { "20250331", "20250630", "20250930" };
     for (int i = 0; i < 3; i++) {

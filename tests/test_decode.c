@@ -77,7 +77,7 @@ typedef struct ref_case {
 static void compare_with_python(const ref_case *cases, size_t ncases, const char *expr,
                                 tt_encoding want_enc, int check_count)
 {
-    char path[] = "/tmp/tt_decode_refXXXXXX";
+    char path[] = TT_TEST_TMP "tt_decode_refXXXXXX";
     int fd = mkstemp(path);
     assert_true(fd >= 0);
     FILE *f = fdopen(fd, "w");

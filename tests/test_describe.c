@@ -33,7 +33,7 @@ static char paths[NDOCS][96];
 
 static void write_docs(void)
 {
-    snprintf(dir, sizeof dir, "/tmp/tt_describe_XXXXXX");
+    snprintf(dir, sizeof dir, TT_TEST_TMP "tt_describe_XXXXXX");
     assert_non_null(mkdtemp(dir));
     for (int i = 0; i < NDOCS; i++) {
         snprintf(paths[i], sizeof paths[i], "%s/doc%02d.txt", dir, i + 1);
@@ -129,7 +129,7 @@ static void test_against_python(void **state)
     double corr[4];
     assert_int_equal(tt_describe_correlation(&d, corr, &err), TT_OK);
 
-    char path[] = "/tmp/tt_describe_py_XXXXXX";
+    char path[] = TT_TEST_TMP "tt_describe_py_XXXXXX";
     int fd = mkstemp(path);
     assert_true(fd >= 0);
     FILE *f = fdopen(fd, "w");

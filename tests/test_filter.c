@@ -218,7 +218,7 @@ static char *write_temp(const char *suffix, const char *text, int gzip)
 {
     char *path = malloc(64);
     assert_non_null(path);
-    snprintf(path, 64, "/tmp/tt_filter_XXXXXX%s", suffix);
+    snprintf(path, 64, TT_TEST_TMP "tt_filter_XXXXXX%s", suffix);
     int fd = mkstemps(path, (int)strlen(suffix));
     assert_true(fd >= 0);
     if (gzip) {

@@ -167,7 +167,7 @@ static void run_case(const char *file)
     gcase c;
     parse_case(text, &c);
     assert_true(c.args[0] && c.expected && c.nfiles > 0);
-    char dir[] = "/tmp/tt_golden_XXXXXX";
+    char dir[] = TT_TEST_TMP "tt_golden_XXXXXX";
     assert_non_null(mkdtemp(dir));
     for (size_t i = 0; i < c.nfiles; i++) {
         char path[1024];

@@ -78,7 +78,7 @@ static void write_rows(tt_format f, tt_buf *out)
 
 static void run_python(const char *script, const char *data, char *result, size_t size)
 {
-    char in[] = "/tmp/tt_output_XXXXXX";
+    char in[] = TT_TEST_TMP "tt_output_XXXXXX";
     int fd = mkstemp(in);
     assert_true(fd >= 0);
     assert_int_equal(write(fd, data, strlen(data)), (ssize_t)strlen(data));
@@ -146,7 +146,7 @@ static void test_tsv_escapes(void **state)
 static void test_atomic_file(void **state)
 {
     (void)state;
-    char dir[] = "/tmp/tt_atomic_XXXXXX";
+    char dir[] = TT_TEST_TMP "tt_atomic_XXXXXX";
     assert_non_null(mkdtemp(dir));
     char path[256];
     snprintf(path, sizeof path, "%s/out.tsv", dir);

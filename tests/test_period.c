@@ -44,7 +44,7 @@ static char *run_capture(const char *cmd)
  * need no shell escaping) and returns its output. */
 static char *run_python(const char *program)
 {
-    char path[] = "/tmp/tt_period_py_XXXXXX";
+    char path[] = TT_TEST_TMP "tt_period_py_XXXXXX";
     int fd = mkstemp(path);
     assert_true(fd >= 0);
     FILE *f = fdopen(fd, "w");

@@ -154,7 +154,7 @@ static void test_sorted_recursive_tree(void **state)
     put_file("tree/loop/a/c.txt", "c", 1);
     make_link("../../a", "tree/loop/a/b/link");
 
-    char root[512], cmd[2048], sp[] = "/tmp/tt_walk_pyXXXXXX";
+    char root[512], cmd[2048], sp[] = TT_TEST_TMP "tt_walk_pyXXXXXX";
     path_of(root, sizeof root, "tree");
     tt_source_list list;
     tt_source_list_init(&list);

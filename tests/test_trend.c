@@ -80,7 +80,7 @@ static void write_file(const char *path, const char *text)
 static void test_collect(void **state)
 {
     (void)state;
-    char dir[] = "/tmp/tt-trend-XXXXXX";
+    char dir[] = TT_TEST_TMP "tt-trend-XXXXXX";
     assert_non_null(mkdtemp(dir));
     char p[3][256];
     const char *texts[3] = {
@@ -212,7 +212,7 @@ static void test_against_references(void **state)
         fprintf(stderr, "   (the program has no trend command yet: skipped)\n");
         skip();
     }
-    char dir[] = "/tmp/tt-trendpy-XXXXXX";
+    char dir[] = TT_TEST_TMP "tt-trendpy-XXXXXX";
     assert_non_null(mkdtemp(dir));
     char cmd[2048];
     snprintf(cmd, sizeof cmd, "%s tests/fixtures/trend/check_trend.py %s %s", tt_test_python(),
@@ -324,7 +324,7 @@ static void test_errors(void **state)
 static void test_out_of_memory(void **state)
 {
     (void)state;
-    char dir[] = "/tmp/tt-trendoom-XXXXXX";
+    char dir[] = TT_TEST_TMP "tt-trendoom-XXXXXX";
     assert_non_null(mkdtemp(dir));
     char path[256];
     snprintf(path, sizeof path, "%s/d.txt", dir);

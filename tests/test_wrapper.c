@@ -77,7 +77,7 @@ static const char *py_parts =
 static char *run_python(const char *script, const char *arg)
 {
     char cmd[4096];
-    char sp[] = "/tmp/tt_wrapper_pyXXXXXX";
+    char sp[] = TT_TEST_TMP "tt_wrapper_pyXXXXXX";
     int fd = mkstemp(sp);
     assert_true(fd >= 0);
     assert_int_equal(write(fd, script, strlen(script)), (ssize_t)strlen(script));
@@ -200,7 +200,7 @@ static void test_fixture_crlf(void **state)
     size_t len, clen;
     char *text = slurp(FIXTURE, &len);
     char *crlf = to_crlf(text, len, &clen);
-    char path[] = "/tmp/tt_wrapper_crlfXXXXXX";
+    char path[] = TT_TEST_TMP "tt_wrapper_crlfXXXXXX";
     int fd = mkstemp(path);
     assert_true(fd >= 0);
     close(fd);

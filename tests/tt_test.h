@@ -12,6 +12,10 @@
 
 #include <cmocka.h>
 
+/* Where tests make their temporary files and directories (mkstemp and
+ * mkdtemp templates are built on it). */
+#define TT_TEST_TMP "/tmp/"
+
 /* The program under test, set by the Makefile. */
 static inline const char *tt_test_bin(void)
 {

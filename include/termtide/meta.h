@@ -170,7 +170,7 @@ typedef struct tt_doc_meta {
  *      across symlinks);
  *   6. an empty result is ".".
  * So "./demo//a.htm", "demo/./a.htm" and "demo/a.htm" all resolve to
- * "demo/a.htm", but "/work/demo/a.htm" and "demo/a.htm" stay different:
+ * "demo/a.htm", but "/data/demo/a.htm" and "demo/a.htm" stay different:
  * relative and absolute spellings only meet in tt_manifest_find_file.
  * TT_ELIMIT when the result is TT_META_PATH_MAX bytes or longer; TT_ENOMEM. */
 tt_status tt_meta_path_resolve(const char *dir, const char *path, tt_buf *out);
@@ -280,7 +280,7 @@ const tt_doc_meta *tt_manifest_find(const tt_manifest *m, const char *path);
 /* Like tt_manifest_find, then, when that fails, by file identity: stat()s
  * path and returns the document whose file has the same device and inode
  * (recorded at load, or at tt_manifest_add when stat succeeded), so
- * "/work/demo/a.htm" finds "demo/a.htm" and a symlink finds its target's
+ * "/data/demo/a.htm" finds "demo/a.htm" and a symlink finds its target's
  * row. When several rows name one file, the first is returned. NULL when
  * neither matches. */
 const tt_doc_meta *tt_manifest_find_file(const tt_manifest *m, const char *path);
