@@ -21,6 +21,15 @@
  * about 10). At 256 a tag costs at most ~33,000 comparisons. */
 #define TT_LIMIT_HTML_ATTRIBUTES 256
 
+/* Longest line of a lexicon file: entries are a term, a category and a
+ * weight; a longer line is a wrong file (or an attack), refused with its
+ * line number. */
+#define TT_LIMIT_LEXICON_LINE 4096
+
+/* Most words in one lexicon phrase ("substantial doubt about ... going
+ * concern" is long at 8); bounds the phrase matcher's window. */
+#define TT_LIMIT_LEXICON_PHRASE_WORDS 8
+
 /* Longest single token, in bytes. Longer runs (base64 blobs, a 50 MB line of
  * one "word") are skipped and counted in the document's note, not stored. */
 #define TT_LIMIT_TOKEN_BYTES 256
