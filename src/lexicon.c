@@ -338,6 +338,14 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
             st = tt_error_set_line(err, TT_EPARSE, name, line, "invalid UTF-8");
             break;
         }
+        size_t ctl = 0;
+        while (ctl < n && ((unsigned char)s[ctl] >= 0x20 || s[ctl] == '\t'))
+            ctl++;
+        if (ctl < n) {
+            st = tt_error_set_line(err, TT_EPARSE, name, line, "control character (byte 0x%02X)",
+                                   (unsigned char)s[ctl]);
+            break;
+        }
         size_t b = 0;
         while (b < n && (s[b] == ' ' || s[b] == '\t'))
             b++;

@@ -98,6 +98,7 @@ static void test_errors(void **state)
     expect_error("going concern*\tnegative\n", TT_EPARSE, 1, "single word");
     expect_error("a b c d e f g h i\tnegative\n", TT_EPARSE, 1, "phrase");
     expect_error("ok\tnegative\nbad\xff\tnegative\n", TT_EPARSE, 2, "UTF-8");
+    expect_error("ok\tnegative\nbad\x01word\tnegative\n", TT_EPARSE, 2, "control character");
     /* a 1 MB line */
     size_t n = 1 << 20;
     char *big = malloc(n + 32);

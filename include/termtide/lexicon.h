@@ -42,7 +42,8 @@ void tt_lexicon_free(tt_lexicon *lex);
  * with the file and line unless said): a line without exactly 2 or 3
  * tab-separated fields; an empty term or category; a category name that is
  * not lower-case letters, digits, '-' or '_'; a weight that is not a
- * positive number; a '*' anywhere but at the end of a single word; a phrase
+ * positive number; a control character (NUL, CR inside a line...); a '*'
+ * anywhere but at the end of a single word; a phrase
  * of more than TT_LIMIT_LEXICON_PHRASE_WORDS words; invalid UTF-8;
  * TT_ELIMIT for a line longer than TT_LIMIT_LEXICON_LINE; TT_EINVAL (no
  * line) when the text holds no entry at all. On error the lexicon keeps
