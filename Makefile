@@ -111,6 +111,8 @@ install: all
 	install -m 644 include/termtide/*.h $(DESTDIR)$(PREFIX)/include/termtide/
 	install -m 644 man/termtide.1 $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1
 	install -m 644 $(STOPWORDS) $(DESTDIR)$(PREFIX)/share/termtide/stopwords/
+	install -d $(DESTDIR)$(PREFIX)/share/termtide/lexicons
+	install -m 644 lexicons/*.txt $(DESTDIR)$(PREFIX)/share/termtide/lexicons/
 
 uninstall:
 	rm -rf $(DESTDIR)$(PREFIX)/bin/termtide $(DESTDIR)$(PREFIX)/lib/libtermtide.a $(DESTDIR)$(PREFIX)/include/termtide $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1 $(DESTDIR)$(PREFIX)/share/termtide
