@@ -1,0 +1,232 @@
+/* termtide — tone scoring.
+ *
+ * One pass over the tokens of each block. The scorer keeps, for the current
+ * sentence, a ring of the last few normalized words (as many as the longest
+ * lexicon phrase) to test phrase endings, and the position of the last
+ * negator. A sentence or block start clears both, so neither a phrase nor
+ * the negation rule reaches across a boundary. Per word: one normalization,
+ * one word lookup, one stem lookup when the lexicon has stems, and one
+ * phrase lookup per phrase length. O(words × longest phrase). */
+#include <math.h>
+
+#include "termtide/filter.h"
+#include "termtide/normalize.h"
+#include "termtide/segment.h"
+#include "termtide/tone.h"
+#include "tt_internal.h"
+
+static const char *const default_negators[] = { "no", "not", "none", "neither", "never",
+                                                "nobody" };
+
+#define MAX_HITS 16
+
+struct tt_tone {
+    tt_tone_options opt;
+    tt_normalizer norm;
+    tt_stemmer *stemmer;
+    tt_buf word, stem, phrase;
+    tt_buf ring[TT_LIMIT_LEXICON_PHRASE_WORDS];
+    size_t ring_len, ring_head;
+};
+
+void tt_tone_options_init(tt_tone_options *o, const tt_lexicon *lex)
+{
+    o->lexicon = lex;
+    o->positive = tt_lexicon_category_find(lex, "positive", NULL);
+    o->negative = tt_lexicon_category_find(lex, "negative", NULL);
+    o->window = 3;
+    o->negators = NULL;
+    o->n_negators = 0;
+}
+
+tt_status tt_tone_scores_init(tt_tone_scores *s, const tt_lexicon *lex)
+{
+    memset(s, 0, sizeof *s);
+    s->n_categories = tt_lexicon_category_count(lex);
+    size_t n = s->n_categories ? s->n_categories : 1;
+    s->weight = tt_calloc(n, sizeof *s->weight);
+    s->matches = tt_calloc(n, sizeof *s->matches);
+    if (!s->weight || !s->matches) {
+        tt_tone_scores_release(s);
+        return TT_ENOMEM;
+    }
+    return TT_OK;
+}
+
+void tt_tone_scores_release(tt_tone_scores *s)
+{
+    tt_free(s->weight);
+    tt_free(s->matches);
+    s->weight = NULL;
+    s->matches = NULL;
+}
+
+void tt_tone_scores_reset(tt_tone_scores *s)
+{
+    s->words = 0;
+    s->negated = 0;
+    for (size_t i = 0; i < s->n_categories; i++) {
+        s->weight[i] = 0;
+        s->matches[i] = 0;
+    }
+}
+
+tt_tone *tt_tone_new(const tt_tone_options *opt)
+{
+    tt_tone *t = tt_calloc(1, sizeof *t);
+    if (!t)
+        return NULL;
+    t->opt = *opt;
+    if (!t->opt.negators) {
+        t->opt.negators = default_negators;
+        t->opt.n_negators = sizeof default_negators / sizeof default_negators[0];
+    }
+    tt_normalizer_init(&t->norm);
+    tt_buf_init(&t->word, TT_LIMIT_TOKEN_BYTES * 8);
+    tt_buf_init(&t->stem, TT_LIMIT_TOKEN_BYTES * 8);
+    tt_buf_init(&t->phrase, 0);
+    for (size_t i = 0; i < TT_LIMIT_LEXICON_PHRASE_WORDS; i++)
+        tt_buf_init(&t->ring[i], TT_LIMIT_TOKEN_BYTES * 8);
+    if (tt_lexicon_has_stems(opt->lexicon) && !(t->stemmer = tt_stemmer_new())) {
+        tt_tone_free(t);
+        return NULL;
+    }
+    return t;
+}
+
+void tt_tone_free(tt_tone *t)
+{
+    if (!t)
+        return;
+    tt_normalizer_release(&t->norm);
+    tt_stemmer_free(t->stemmer);
+    tt_buf_release(&t->word);
+    tt_buf_release(&t->stem);
+    tt_buf_release(&t->phrase);
+    for (size_t i = 0; i < TT_LIMIT_LEXICON_PHRASE_WORDS; i++)
+        tt_buf_release(&t->ring[i]);
+    tt_free(t);
+}
+
+static int is_negator(const tt_tone *t, const char *w, size_t n)
+{
+    for (size_t i = 0; i < t->opt.n_negators; i++)
+        if (strlen(t->opt.negators[i]) == n && !memcmp(t->opt.negators[i], w, n))
+            return 1;
+    return 0;
+}
+
+/* Counts the entries idx[0..n) for a word at sentence position pos. */
+static void count_hits(tt_tone *t, const size_t *idx, size_t n, int negated, tt_tone_scores *s)
+{
+    for (size_t i = 0; i < n && i < MAX_HITS; i++) {
+        const tt_lexicon_entry *e = tt_lexicon_entry_at(t->opt.lexicon, idx[i]);
+        size_t cat = e->category;
+        if (negated && t->opt.positive >= 0 && t->opt.negative >= 0 &&
+            cat == (size_t)t->opt.positive) {
+            cat = (size_t)t->opt.negative;
+            s->negated++;
+        }
+        s->weight[cat] += e->weight;
+        s->matches[cat]++;
+    }
+}
+
+static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_scores *s)
+{
+    const tt_lexicon *lex = t->opt.lexicon;
+    size_t max_phrase = tt_lexicon_max_phrase_words(lex);
+    tt_tokenizer tk;
+    tt_token tok;
+    size_t idx[MAX_HITS];
+    long pos = 0, last_negator = -1000000;
+    tt_tokenizer_init(&tk, text, len);
+    t->ring_len = 0;
+    t->ring_head = 0;
+    while (tt_tokenizer_next(&tk, &tok)) {
+        if (tok.sentence_start) {
+            t->ring_len = 0;
+            t->ring_head = 0;
+            pos = 0;
+            last_negator = -1000000;
+        }
+        if (tok.kind != TT_TOKEN_WORD)
+            continue;
+        tt_status st = tt_normalize(&t->norm, text + tok.off, tok.len, &t->word);
+        if (st == TT_ELIMIT)
+            continue;
+        if (st)
+            return st;
+        if (t->word.len == 0)
+            continue;
+        s->words++;
+        int negated = pos - last_negator <= (long)t->opt.window;
+        size_t n = tt_lexicon_match(lex, TT_LEXICON_WORD, t->word.data, t->word.len, idx,
+                                    MAX_HITS);
+        count_hits(t, idx, n, negated, s);
+        if (t->stemmer) {
+            if ((st = tt_stem(t->stemmer, t->word.data, t->word.len, &t->stem)) != TT_OK)
+                return st;
+            n = tt_lexicon_match(lex, TT_LEXICON_STEM, t->stem.data, t->stem.len, idx, MAX_HITS);
+            count_hits(t, idx, n, negated, s);
+        }
+        if (max_phrase > 1) {
+            /* The ring keeps the last max_phrase words of this sentence;
+             * the current word goes in after the newest, replacing the
+             * oldest when full. */
+            size_t slot = (t->ring_head + t->ring_len) % TT_LIMIT_LEXICON_PHRASE_WORDS;
+            if (t->ring_len < max_phrase)
+                t->ring_len++;
+            else
+                t->ring_head = (t->ring_head + 1) % TT_LIMIT_LEXICON_PHRASE_WORDS;
+            tt_buf_reset(&t->ring[slot]);
+            if ((st = tt_buf_append(&t->ring[slot], t->word.data, t->word.len)) != TT_OK)
+                return st;
+            /* ring now ends with the current word; try every length >= 2 */
+            for (size_t words = 2; words <= max_phrase && words <= t->ring_len; words++) {
+                tt_buf_reset(&t->phrase);
+                size_t first = (t->ring_head + t->ring_len - words) % TT_LIMIT_LEXICON_PHRASE_WORDS;
+                for (size_t w = 0; w < words; w++) {
+                    const tt_buf *b = &t->ring[(first + w) % TT_LIMIT_LEXICON_PHRASE_WORDS];
+                    if ((w && (st = tt_buf_putc(&t->phrase, ' ')) != TT_OK) ||
+                        (st = tt_buf_append(&t->phrase, b->data, b->len)) != TT_OK)
+                        return st;
+                }
+                n = tt_lexicon_match(lex, TT_LEXICON_PHRASE, t->phrase.data, t->phrase.len, idx,
+                                     MAX_HITS);
+                /* a phrase is negated when a negator precedes its first word */
+                int pneg = (pos - (long)(words - 1)) - last_negator <= (long)t->opt.window &&
+                           last_negator < pos - (long)(words - 1);
+                count_hits(t, idx, n, pneg, s);
+            }
+        }
+        if (is_negator(t, t->word.data, t->word.len))
+            last_negator = pos;
+        pos++;
+    }
+    return TT_OK;
+}
+
+tt_status tt_tone_score_blocks(tt_tone *t, const tt_blocks *blocks, tt_tone_scores *s)
+{
+    for (size_t i = 0; i < blocks->n; i++) {
+        tt_status st = score_block(t, blocks->text.data + blocks->items[i].off,
+                                   blocks->items[i].len, s);
+        if (st)
+            return st;
+    }
+    return TT_OK;
+}
+
+tt_status tt_tone_score_text(tt_tone *t, const char *text, size_t len, tt_tone_scores *s)
+{
+    return score_block(t, text, len, s);
+}
+
+double tt_tone_net(const tt_tone_scores *s, long positive, long negative)
+{
+    if (positive < 0 || negative < 0)
+        return NAN;
+    double p = s->weight[positive], n = s->weight[negative];
+    return p + n > 0 ? (p - n) / (p + n) : NAN;
+}

@@ -1,0 +1,179 @@
+/* Tests of tone scoring (src/tone.c): the negation window (inside, at and
+ * beyond three words; across a sentence end), phrases within a sentence,
+ * stem entries, and category shares of a fixture against an independent
+ * computation at test time with Python's standard library (re). */
+#include <math.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include "tt_test.h"
+
+#include "termtide/lexicon.h"
+#include "termtide/tone.h"
+
+static const char lexicon_text[] = "# name: test\n"
+                                   "strong\tpositive\n"
+                                   "good\tpositive\n"
+                                   "improved\tpositive\t0.5\n"
+                                   "weak\tnegative\n"
+                                   "decline\tnegative\n"
+                                   "going concern\tnegative\n"
+                                   "substantial doubt\tnegative\n"
+                                   "litigation*\tlegal\n"
+                                   "may\thedging\n";
+
+typedef struct fixture {
+    tt_lexicon *lex;
+    tt_tone *tone;
+    tt_tone_scores s;
+    long pos, neg, legal;
+} fixture;
+
+static void setup_fixture(fixture *f)
+{
+    tt_error err;
+    tt_error_init(&err);
+    f->lex = tt_lexicon_new();
+    assert_int_equal(tt_lexicon_load_text(f->lex, lexicon_text, strlen(lexicon_text), "t", &err),
+                     TT_OK);
+    tt_tone_options o;
+    tt_tone_options_init(&o, f->lex);
+    f->pos = o.positive;
+    f->neg = o.negative;
+    f->legal = tt_lexicon_category_find(f->lex, "legal", NULL);
+    assert_true(f->pos >= 0 && f->neg >= 0 && f->legal >= 0);
+    f->tone = tt_tone_new(&o);
+    assert_non_null(f->tone);
+    assert_int_equal(tt_tone_scores_init(&f->s, f->lex), TT_OK);
+}
+
+static void teardown_fixture(fixture *f)
+{
+    tt_tone_scores_release(&f->s);
+    tt_tone_free(f->tone);
+    tt_lexicon_free(f->lex);
+}
+
+static void score(fixture *f, const char *text)
+{
+    tt_tone_scores_reset(&f->s);
+    assert_int_equal(tt_tone_score_text(f->tone, text, strlen(text), &f->s), TT_OK);
+}
+
+/* Loughran & McDonald (2011): a positive word with a negator among the three
+ * words before it, in the same sentence, is not positive (counted negative
+ * here, a common variant). */
+static void test_negation_window(void **state)
+{
+    (void)state;
+    fixture f;
+    setup_fixture(&f);
+    score(&f, "Demand was not strong.");            /* 1 word before */
+    assert_int_equal(f.s.matches[f.pos], 0);
+    assert_int_equal(f.s.matches[f.neg], 1);
+    assert_int_equal(f.s.negated, 1);
+    score(&f, "Not the very strong quarter.");      /* exactly 3 words before */
+    assert_int_equal(f.s.matches[f.neg], 1);
+    score(&f, "Not the very best strong quarter."); /* 4 words before: beyond */
+    assert_int_equal(f.s.matches[f.pos], 1);
+    assert_int_equal(f.s.matches[f.neg], 0);
+    score(&f, "Results were never good. Strong demand followed."); /* across a sentence end */
+    assert_int_equal(f.s.matches[f.neg], 1);
+    assert_int_equal(f.s.matches[f.pos], 1);
+    score(&f, "No decline occurred.");              /* a negated negative stays negative */
+    assert_int_equal(f.s.matches[f.neg], 1);
+    assert_int_equal(f.s.negated, 0);
+    score(&f, "Margins improved.");
+    assert_true(fabs(f.s.weight[f.pos] - 0.5) < 1e-12);
+    assert_true(isnan(tt_tone_net(&(tt_tone_scores){ 0 }, -1, 0)));
+    teardown_fixture(&f);
+}
+
+static void test_phrases_and_stems(void **state)
+{
+    (void)state;
+    fixture f;
+    setup_fixture(&f);
+    score(&f, "There is substantial doubt about our ability to continue as a going concern.");
+    assert_int_equal(f.s.matches[f.neg], 2);
+    score(&f, "We kept going. Concern grew.");      /* never across a sentence end */
+    assert_int_equal(f.s.matches[f.neg], 0);
+    /* litigation* matches words stemming to "litig" (Snowball English:
+     * litigation -> litig, per snowball-data output.txt) */
+    score(&f, "Litigations and litigated claims; litigation costs.");
+    assert_int_equal(f.s.matches[f.legal], 3);
+    assert_int_equal(f.s.words, 6);
+    teardown_fixture(&f);
+}
+
+/* Shares per 1,000 words of a fixture against Python: words are runs of
+ * ASCII letters (the fixture has no apostrophes, hyphens or digits), lower
+ * cased; sentences end at . ! ?; a positive word with no/not/never/none/
+ * neither/nobody among the three words before it in its sentence counts as
+ * negative. */
+static void test_shares_against_python(void **state)
+{
+    (void)state;
+    fixture f;
+    setup_fixture(&f);
+    const char *text =
+        "Demand was strong and margins improved. The board may review the decline. "
+        "Results were not good in the east region and weak in the west. Strong orders may "
+        "offset the decline. Management said the outlook was good, not weak, and that the "
+        "quarter was never strong enough to lift the margin. Good cash flow helped.";
+    score(&f, text);
+    char path[] = TT_TEST_TMP "tt_tone_XXXXXX";
+    int fd = mkstemp(path);
+    assert_true(fd >= 0);
+    assert_int_equal(write(fd, text, strlen(text)), (ssize_t)strlen(text));
+    close(fd);
+    char cmd[4096];
+    snprintf(cmd, sizeof cmd,
+             "%s -c '\n"
+             "import re, sys\n"
+             "lex = {\"strong\": (\"positive\", 1), \"good\": (\"positive\", 1), \"improved\": (\"positive\", 0.5),\n"
+             "       \"weak\": (\"negative\", 1), \"decline\": (\"negative\", 1), \"may\": (\"hedging\", 1)}\n"
+             "neg = {\"no\", \"not\", \"none\", \"neither\", \"never\", \"nobody\"}\n"
+             "text = open(sys.argv[1]).read()\n"
+             "w = {\"positive\": 0.0, \"negative\": 0.0, \"hedging\": 0.0}\n"
+             "words = 0\n"
+             "for sent in re.split(r\"[.!?]\", text):\n"
+             "    toks = [t.lower() for t in re.findall(r\"[A-Za-z]+\", sent)]\n"
+             "    for i, t in enumerate(toks):\n"
+             "        words += 1\n"
+             "        if t in lex:\n"
+             "            cat, wt = lex[t]\n"
+             "            if cat == \"positive\" and any(x in neg for x in toks[max(0, i - 3):i]): cat = \"negative\"\n"
+             "            w[cat] += wt\n"
+             "print(words, \"%%.10f %%.10f %%.10f\" %% tuple(1000 * w[c] / words for c in (\"positive\", \"negative\", \"hedging\")))\n"
+             "' %s",
+             tt_test_python(), path);
+    FILE *p = popen(cmd, "r");
+    assert_non_null(p);
+    unsigned long words = 0;
+    double ref[3];
+    assert_int_equal(fscanf(p, "%lu %lf %lf %lf", &words, &ref[0], &ref[1], &ref[2]), 4);
+    assert_int_equal(pclose(p), 0);
+    unlink(path);
+    assert_int_equal(f.s.words, words);
+    long hedging = tt_lexicon_category_find(f.lex, "hedging", NULL);
+    double mine[3] = { 1000 * f.s.weight[f.pos] / (double)f.s.words,
+                       1000 * f.s.weight[f.neg] / (double)f.s.words,
+                       1000 * f.s.weight[hedging] / (double)f.s.words };
+    for (int i = 0; i < 3; i++)
+        if (fabs(mine[i] - ref[i]) > 1e-6)
+            fail_msg("category %d: %.10f per 1,000 words, Python says %.10f", i, mine[i], ref[i]);
+    print_message("shares per 1,000 words: positive %.3f negative %.3f hedging %.3f (%lu words)\n",
+                  mine[0], mine[1], mine[2], words);
+    teardown_fixture(&f);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_negation_window),
+        cmocka_unit_test(test_phrases_and_stems),
+        cmocka_unit_test(test_shares_against_python),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}
