@@ -37,10 +37,12 @@ LIB_SRC := $(sort $(wildcard src/*.c))
 CLI_SRC := $(sort $(wildcard src/cli/*.c))
 TEST_SRC:= $(sort $(wildcard tests/test_*.c))
 GEN_SRC := $(B)/gen/stopwords_data.c
-LIB_OBJ := $(LIB_SRC:src/%.c=$(B)/obj/%.o) $(B)/obj/gen/stopwords_data.o
+LEX_GEN := $(B)/gen/lexicons_data.c
+LIB_OBJ := $(LIB_SRC:src/%.c=$(B)/obj/%.o) $(B)/obj/gen/stopwords_data.o $(B)/obj/gen/lexicons_data.o
 CLI_OBJ := $(CLI_SRC:src/cli/%.c=$(B)/obj/cli/%.o)
 TESTS   := $(TEST_SRC:tests/%.c=$(B)/tests/%)
 STOPWORDS := $(sort $(wildcard stopwords/*.txt))
+LEXICONS := $(sort $(wildcard lexicons/*.txt))
 
 .PHONY: all test check san-test bench install uninstall clean leakcheck lint format fuzz
 all: $(B)/libtermtide.a $(B)/termtide
@@ -58,7 +60,9 @@ $(B)/obj/cli $(B)/obj/gen $(B)/gen $(B)/tests:
 $(B)/embed: tools/embed.c | $(B)/gen
 	$(CC) $(WARN) -O1 $< -o $@
 $(GEN_SRC): $(B)/embed $(STOPWORDS) | $(B)/gen
-	$(B)/embed $(STOPWORDS) > $@.tmp && mv $@.tmp $@
+	$(B)/embed tti_stopword_lists $(STOPWORDS) > $@.tmp && mv $@.tmp $@
+$(LEX_GEN): $(B)/embed $(LEXICONS) | $(B)/gen
+	$(B)/embed tti_lexicon_files $(LEXICONS) > $@.tmp && mv $@.tmp $@
 
 $(B)/libtermtide.a: $(LIB_OBJ)
 	rm -f $@ && ar rcs $@ $^
@@ -131,7 +135,7 @@ FUZZ_SECONDS ?= 60
 FUZZ_CC      ?= clang
 FUZZ_B       := build-fuzz
 FUZZ_FLAGS   := -O1 -g -fno-omit-frame-pointer -fsanitize=address,undefined -fno-sanitize-recover=all
-FUZZ_LIB_OBJ := $(LIB_SRC:src/%.c=$(FUZZ_B)/obj/%.o) $(FUZZ_B)/obj/gen/stopwords_data.o
+FUZZ_LIB_OBJ := $(LIB_SRC:src/%.c=$(FUZZ_B)/obj/%.o) $(FUZZ_B)/obj/gen/stopwords_data.o $(FUZZ_B)/obj/gen/lexicons_data.o
 .PHONY: fuzz-replay fuzz-run
 
 fuzz:
@@ -151,6 +155,8 @@ $(B)/fuzz/replay_%: fuzz/fuzz_%.c fuzz/fuzz_common.h $(B)/libtermtide.a | $(B)/f
 $(FUZZ_B)/obj/%.o: src/%.c $(wildcard include/termtide/*.h src/*.h) | $(FUZZ_B)/obj/gen
 	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer-no-link -c $< -o $@
 $(FUZZ_B)/obj/gen/stopwords_data.o: $(GEN_SRC) | $(FUZZ_B)/obj/gen
+	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -c $< -o $@
+$(FUZZ_B)/obj/gen/lexicons_data.o: $(LEX_GEN) | $(FUZZ_B)/obj/gen
 	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -c $< -o $@
 $(FUZZ_B)/libtermtide.a: $(FUZZ_LIB_OBJ)
 	rm -f $@ && ar rcs $@ $^

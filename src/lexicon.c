@@ -445,6 +445,21 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
     return st;
 }
 
+/* The shipped lexicons, compiled in from lexicons/ by tools/embed.c. */
+struct tti_embedded {
+    const char *name;
+    const char *text;
+};
+extern const struct tti_embedded tti_lexicon_files[];
+
+const char *tt_builtin_lexicon(const char *name)
+{
+    for (size_t i = 0; tti_lexicon_files[i].name; i++)
+        if (!strcmp(tti_lexicon_files[i].name, name))
+            return tti_lexicon_files[i].text;
+    return NULL;
+}
+
 tt_status tt_lexicon_load_file(tt_lexicon *lex, const char *path, tt_error *err)
 {
     tt_buf raw;

@@ -168,12 +168,70 @@ static void test_shares_against_python(void **state)
     teardown_fixture(&f);
 }
 
+static char *capture(const char *args, int *status)
+{
+    char cmd[4096];
+    snprintf(cmd, sizeof cmd, "%s %s 2>&1", tt_test_bin(), args);
+    FILE *p = popen(cmd, "r");
+    assert_non_null(p);
+    size_t cap = 1 << 18, n = 0, k;
+    char *out = malloc(cap);
+    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0)
+        n += k;
+    out[n] = '\0';
+    int st = pclose(p);
+    *status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
+    return out;
+}
+
+/* The demo corpus's invented story through the program with the shipped
+ * lexicon: net tone of the first company's calls is positive before the
+ * supply crisis, negative through 2024-Q2..Q4, positive again by 2025-Q4;
+ * the negative share peaks inside the crisis. */
+static void test_demo_story(void **state)
+{
+    (void)state;
+    int st;
+    char *out = capture("tone --quiet --no-header demo-corpus/hollowmere/2023-Q3-call-transcript.txt "
+                        "demo-corpus/hollowmere/2024-Q3-call-transcript.txt "
+                        "demo-corpus/hollowmere/2025-Q4-call-transcript.txt", &st);
+    assert_int_equal(st, 0);
+    double net[3], negative[3];
+    char *line = out;
+    for (int i = 0; i < 3; i++) {
+        char *f[20];
+        int k = 0;
+        char *save = NULL;
+        char *end = strchr(line, '\n');
+        assert_non_null(end);
+        *end = '\0';
+        for (char *t = strtok_r(line, "\t", &save); t && k < 20; t = strtok_r(NULL, "\t", &save))
+            f[k++] = t;
+        assert_int_equal(k, 15); /* document words 5x(count rate) net net_per_1000 negated */
+        negative[i] = strtod(f[3], NULL);
+        net[i] = strtod(f[12], NULL);
+        line = end + 1;
+    }
+    assert_true(net[0] > 0.3 && net[1] < -0.3 && net[2] > 0.3);
+    assert_true(negative[1] > 2 * negative[0] && negative[1] > 2 * negative[2]);
+    free(out);
+    out = capture("tone --check", &st);
+    assert_int_equal(st, 0);
+    assert_non_null(strstr(out, "terms under more than one category"));
+    free(out);
+    out = capture("tone --lexicon tests/fixtures/cli/ascii_prose.txt demo-corpus/hollowmere", &st);
+    assert_int_equal(st, 2);
+    assert_non_null(strstr(out, "ascii_prose.txt: line 1:"));
+    free(out);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_negation_window),
         cmocka_unit_test(test_phrases_and_stems),
         cmocka_unit_test(test_shares_against_python),
+        cmocka_unit_test(test_demo_story),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

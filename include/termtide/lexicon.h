@@ -54,6 +54,10 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
 /* The same from a file (gzip read transparently). */
 tt_status tt_lexicon_load_file(tt_lexicon *lex, const char *path, tt_error *err);
 
+/* The text of a lexicon shipped with termtide ("finance", from
+ * lexicons/finance.txt, compiled in), or NULL for an unknown name. */
+const char *tt_builtin_lexicon(const char *name);
+
 /* Header values of the last text loaded, "" when absent. */
 const char *tt_lexicon_name(const tt_lexicon *lex);
 const char *tt_lexicon_version(const tt_lexicon *lex);

@@ -38,6 +38,8 @@ int tt_cmd_describe(int argc, char **argv);
 extern const char tt_help_describe[];
 int tt_cmd_trend(int argc, char **argv);
 extern const char tt_help_trend[];
+int tt_cmd_tone(int argc, char **argv);
+extern const char tt_help_tone[];
 
 /* The program name for messages. */
 extern const char *tt_prog;

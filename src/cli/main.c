@@ -19,6 +19,7 @@ static const tt_command commands[] = {
     { "compare", tt_cmd_compare, "what changed between two sides or periods (G², Log Ratio, q)", tt_help_compare },
     { "describe", tt_cmd_describe, "a term's distribution, and where the latest document sits", tt_help_describe },
     { "trend", tt_cmd_trend, "terms across periods: rates, statistics, dispersion, tf-idf", tt_help_trend },
+    { "tone", tt_cmd_tone, "words by lexicon category per document, with negation", tt_help_tone },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
