@@ -545,3 +545,17 @@ double tt_cosine_vectors(const double *x, const double *y, size_t n)
         c = -1.0L;
     return (double)c;
 }
+
+void tt_two_proportion_z(double x1, double n1, double x2, double n2, double *z, double *p)
+{
+    *z = NAN;
+    *p = NAN;
+    if (!(n1 > 0) || !(n2 > 0) || x1 < 0 || x2 < 0 || x1 > n1 || x2 > n2)
+        return;
+    double pooled = (x1 + x2) / (n1 + n2);
+    double var = pooled * (1 - pooled) * (1 / n1 + 1 / n2);
+    if (!(var > 0))
+        return;
+    *z = (x2 / n2 - x1 / n1) / sqrt(var);
+    *p = erfc(fabs(*z) / sqrt(2.0));
+}

@@ -9,6 +9,7 @@
 #include "tt_test.h"
 
 #include "termtide/lexicon.h"
+#include "termtide/stats.h"
 #include "termtide/tone.h"
 
 static const char lexicon_text[] = "# name: test\n"
@@ -215,6 +216,27 @@ static void test_demo_story(void **state)
     assert_true(net[0] > 0.3 && net[1] < -0.3 && net[2] > 0.3);
     assert_true(negative[1] > 2 * negative[0] && negative[1] > 2 * negative[2]);
     free(out);
+    /* per period with the manifest: negative language rises into 2024-Q2
+     * significantly (p < 0.05) and falls out of 2025-Q3 significantly */
+    out = capture("tone --quiet --manifest demo-corpus/manifest.tsv --kinds call-transcript "
+                  "--entity hollowmere --consecutive", &st);
+    assert_int_equal(st, 0);
+    char *rise = strstr(out, "hollowmere\t2024-Q1\t2024-Q2\tnegative\t");
+    char *fall = strstr(out, "hollowmere\t2025-Q3\t2025-Q4\tnegative\t");
+    assert_non_null(rise);
+    assert_non_null(fall);
+    char *r_end = strchr(rise, '\n'), *f_end = strchr(fall, '\n');
+    *r_end = '\0';
+    *f_end = '\0';
+    assert_non_null(strstr(rise, "\trise"));
+    assert_non_null(strstr(fall, "\tfall"));
+    char *rp = strrchr(rise, '\t');
+    *rp = '\0';
+    assert_true(strtod(strrchr(rise, '\t') + 1, NULL) < 0.05);
+    char *fp = strrchr(fall, '\t');
+    *fp = '\0';
+    assert_true(strtod(strrchr(fall, '\t') + 1, NULL) < 0.05);
+    free(out);
     out = capture("tone --check", &st);
     assert_int_equal(st, 0);
     assert_non_null(strstr(out, "terms under more than one category"));
@@ -225,6 +247,49 @@ static void test_demo_story(void **state)
     free(out);
 }
 
+/* The two-proportion z-test of a category's share between two periods:
+ * z² and p against scipy.stats.chi2_contingency(correction=False) on the
+ * same 2×2 table (Debian python3-scipy), with weighted (non-integer) counts
+ * as tone produces them. */
+static void test_two_proportion_against_scipy(void **state)
+{
+    (void)state;
+    char path[] = TT_TEST_TMP "tt_tone_z_XXXXXX";
+    int fd = mkstemp(path);
+    assert_true(fd >= 0);
+    FILE *f = fdopen(fd, "w");
+    double zs[40], ps[40];
+    for (int i = 0; i < 40; i++) {
+        double n1 = 500 + 97 * i, n2 = 800 + 61 * i;
+        double x1 = 0.5 * (i % 17) + 1, x2 = 0.5 * ((i * 7) % 29) + 2;
+        tt_two_proportion_z(x1, n1, x2, n2, &zs[i], &ps[i]);
+        fprintf(f, "%.17g %.17g %.17g %.17g\n", x1, n1, x2, n2);
+    }
+    fclose(f);
+    char cmd[2048];
+    snprintf(cmd, sizeof cmd,
+             "%s -c '\n"
+             "import sys\n"
+             "from scipy.stats import chi2_contingency\n"
+             "for line in open(sys.argv[1]):\n"
+             "    x1, n1, x2, n2 = map(float, line.split())\n"
+             "    c, p, dof, e = chi2_contingency([[x1, n1 - x1], [x2, n2 - x2]], correction=False)\n"
+             "    print(\"%%.17g %%.17g\" %% (c, p))\n"
+             "' %s",
+             tt_test_python(), path);
+    FILE *py = popen(cmd, "r");
+    assert_non_null(py);
+    for (int i = 0; i < 40; i++) {
+        double chi2, p;
+        assert_int_equal(fscanf(py, "%lf %lf", &chi2, &p), 2);
+        if (fabs(zs[i] * zs[i] - chi2) > 1e-9 * chi2 + 1e-12 || fabs(ps[i] - p) > 1e-9 * p + 1e-15)
+            fail_msg("case %d: z^2 %.12g p %.12g, SciPy chi2 %.12g p %.12g", i, zs[i] * zs[i],
+                     ps[i], chi2, p);
+    }
+    assert_int_equal(pclose(py), 0);
+    unlink(path);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -232,6 +297,7 @@ int main(void)
         cmocka_unit_test(test_phrases_and_stems),
         cmocka_unit_test(test_shares_against_python),
         cmocka_unit_test(test_demo_story),
+        cmocka_unit_test(test_two_proportion_against_scipy),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -112,6 +112,13 @@ typedef struct tt_change {
 tt_status tt_change_compute(uint64_t a, uint64_t n1, uint64_t b, uint64_t n2, tt_change *out,
                             tt_error *err);
 
+/* Two-proportion z-test (pooled): x1 of n1 against x2 of n2 (x may be a
+ * weighted, non-integer count), z = (p2 − p1) / sqrt(p(1 − p)(1/n1 + 1/n2))
+ * with p = (x1 + x2) / (n1 + n2); the two-sided p-value is erfc(|z|/√2).
+ * z² equals Pearson's chi-square on the same 2×2 table without continuity
+ * correction. *z and *p are NaN when a side has no trials or p is 0 or 1. */
+void tt_two_proportion_z(double x1, double n1, double x2, double n2, double *z, double *p);
+
 /* ======================================================================
  * r × c contingency tables (e.g. term × period)
  * ====================================================================== */

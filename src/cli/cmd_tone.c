@@ -7,6 +7,8 @@
 
 #include "termtide/document.h"
 #include "termtide/lexicon.h"
+#include "termtide/meta.h"
+#include "termtide/stats.h"
 #include "termtide/tone.h"
 #include "cli.h"
 
@@ -35,13 +37,26 @@ const char tt_help_tone[] =
     "  --window N            negation window in words (0 turns negation off)\n"
     "  --negators LIST       comma-separated negators instead of the six above\n"
     "  --total               add a row for all documents together ('*')\n"
+    "\n"
+    "Periods (document metadata as for compare):\n"
+    "  --manifest FILE, --layout PATTERN ROOT..., --headers ROOT...\n"
+    "                        one row per entity and period (its documents together):\n"
+    "                          entity period words CATEGORY ... negated\n"
+    "  --entity NAME, --kinds LIST   which documents form each series\n"
+    "  --consecutive         instead, per entity, each pair of consecutive periods and\n"
+    "                        category: entity base target category base_per_1000\n"
+    "                        target_per_1000 change_per_1000 z p_value direction; z is\n"
+    "                        the pooled two-proportion z-test of the category's\n"
+    "                        weighted count among the period's words (z squared is\n"
+    "                        Pearson's chi-square on that 2x2 table), p two-sided\n"
     "  -f, --format tsv|csv|jsonl   -o, --output FILE   --no-header\n"
     "  --tables keep|drop   --doc-types LIST   -q, --quiet   (as for count)\n"
     "\n"
     "termtide measures language; it gives no investment, legal or compliance advice.\n";
 
 enum { OPT_LEXICON = CLI_OPT_FIRST_FREE, OPT_CHECK, OPT_WINDOW, OPT_NEGATORS, OPT_TOTAL,
-       OPT_NO_HEADER };
+       OPT_NO_HEADER, OPT_MANIFEST, OPT_LAYOUT, OPT_HEADERS, OPT_HEADER_PERIOD, OPT_ENTITY,
+       OPT_KINDS, OPT_CONSECUTIVE };
 
 static const struct option longopts[] = {
     { "lexicon", required_argument, NULL, OPT_LEXICON },
@@ -49,6 +64,13 @@ static const struct option longopts[] = {
     { "window", required_argument, NULL, OPT_WINDOW },
     { "negators", required_argument, NULL, OPT_NEGATORS },
     { "total", no_argument, NULL, OPT_TOTAL },
+    { "manifest", required_argument, NULL, OPT_MANIFEST },
+    { "layout", required_argument, NULL, OPT_LAYOUT },
+    { "headers", no_argument, NULL, OPT_HEADERS },
+    { "header-period", required_argument, NULL, OPT_HEADER_PERIOD },
+    { "entity", required_argument, NULL, OPT_ENTITY },
+    { "kinds", required_argument, NULL, OPT_KINDS },
+    { "consecutive", no_argument, NULL, OPT_CONSECUTIVE },
     { "format", required_argument, NULL, 'f' },
     { "output", required_argument, NULL, 'o' },
     { "no-header", no_argument, NULL, OPT_NO_HEADER },
@@ -73,15 +95,19 @@ typedef struct tone_ctx {
     tt_error err;
     size_t documents, problems;
     int quiet, total;
+    size_t lead;           /* leading label columns: 1 (document) or 2 */
+    int grouping;          /* documents add to `all` only; rows per group */
 } tone_ctx;
 
-static tt_status write_row(tone_ctx *c, const char *name, const tt_tone_scores *s)
+static tt_status write_row(tone_ctx *c, const char *name, const char *period,
+                           const tt_tone_scores *s)
 {
     tt_table_writer w;
     tt_status st = tt_table_begin(&w, c->format, &c->buf, c->cols, c->ncols, c->header);
     c->header = 0;
     double words = (double)s->words;
     if (!st) st = tt_table_cstr(&w, name);
+    if (!st && period) st = tt_table_cstr(&w, period);
     if (!st) st = tt_table_u64(&w, s->words);
     for (size_t k = 0; k < s->n_categories && !st; k++) {
         st = tt_table_fixed(&w, s->weight[k], 1);
@@ -109,7 +135,26 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     for (size_t k = 0; k < c->doc.n_categories; k++)
         c->all.weight[k] += c->doc.weight[k];
     c->documents++;
-    return write_row(c, doc->name, &c->doc);
+    return c->grouping ? TT_OK : write_row(c, doc->name, NULL, &c->doc);
+}
+
+/* Scores the documents of one path; a problem is reported and counted.
+ * Returns 0 only on a write error (already printed). */
+static int read_path(tone_ctx *c, tt_reader *reader, const char *path, const tt_read_options *ro)
+{
+    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+    tt_error err;
+    tt_error_init(&err);
+    tt_status st = tt_reader_read(reader, path, ro, on_doc, c, NULL, &err);
+    if (st == TT_EIO && c->err.status) {
+        cli_error("%s", tt_error_format(&c->err, msg, sizeof msg));
+        return 0;
+    }
+    if (st) {
+        cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
+        c->problems++;
+    }
+    return 1;
 }
 
 int tt_cmd_tone(int argc, char **argv)
@@ -125,7 +170,17 @@ int tt_cmd_tone(int argc, char **argv)
     const char **negators = NULL;
     size_t n_negators = 0;
     uint64_t window = 3;
-    int check = 0, opt, rc = TT_EXIT_TROUBLE, out_open = 0;
+    int check = 0, opt, rc = TT_EXIT_TROUBLE, out_open = 0, headers = 0, consecutive = 0;
+    const char *manifest_path = NULL, *layout = NULL;
+    tt_period_granularity header_period = TT_PERIOD_QUARTER;
+    tt_series_options sopt;
+    tt_series_options_init(&sopt);
+    tt_manifest m;
+    tt_manifest_init(&m);
+    tt_series series;
+    tt_series_init(&series);
+    tt_tone_scores prev;
+    memset(&prev, 0, sizeof prev);
     tt_read_options ro = { 0, NULL };
     tt_lexicon *lex = NULL;
     tt_reader *reader = NULL;
@@ -144,6 +199,16 @@ int tt_cmd_tone(int argc, char **argv)
             break;
         case OPT_NEGATORS: negator_list = optarg; break;
         case OPT_TOTAL: c.total = 1; break;
+        case OPT_MANIFEST: manifest_path = optarg; break;
+        case OPT_LAYOUT: layout = optarg; break;
+        case OPT_HEADERS: headers = 1; break;
+        case OPT_HEADER_PERIOD:
+            if (!cli_header_period(optarg, &header_period))
+                goto out;
+            break;
+        case OPT_ENTITY: sopt.entity = optarg; break;
+        case OPT_KINDS: sopt.kinds = optarg; break;
+        case OPT_CONSECUTIVE: consecutive = 1; break;
         case 'f':
             if (!cli_parse_format(optarg, &c.format))
                 goto out;
@@ -162,6 +227,21 @@ int tt_cmd_tone(int argc, char **argv)
         case 'h': fputs(tt_help_tone, stdout); rc = TT_EXIT_OK; goto out;
         default: fprintf(stderr, "Try 'termtide help tone'.\n"); goto out;
         }
+    }
+    int metadata = manifest_path || layout || headers;
+    if ((manifest_path != NULL) + (layout != NULL) + headers > 1) {
+        cli_error("give one of --manifest, --layout and --headers");
+        goto out;
+    }
+    if ((consecutive || sopt.entity || sopt.kinds) && !metadata) {
+        cli_error("--consecutive, --entity and --kinds need document metadata: --manifest FILE, "
+                  "--layout PATTERN ROOT or --headers ROOT");
+        goto out;
+    }
+    if (manifest_path && optind < argc) {
+        cli_error("unexpected argument '%s' (with --manifest the documents are its rows)",
+                  argv[optind]);
+        goto out;
     }
     tt_error err;
     tt_error_init(&err);
@@ -223,12 +303,16 @@ int tt_cmd_tone(int argc, char **argv)
         tt_tone_scores_init(&c.all, lex) || !(reader = tt_reader_new()))
         goto oom;
     size_t ncat = tt_lexicon_category_count(lex);
-    c.ncols = 2 + 2 * ncat + 3;
+    size_t lead = metadata ? 2 : 1;
+    c.ncols = lead + 1 + 2 * ncat + 3;
     c.cols = calloc(c.ncols, sizeof *c.cols);
     if (!c.cols)
         goto oom;
-    c.cols[0] = "document";
-    c.cols[1] = "words";
+    c.lead = lead;
+    c.cols[0] = metadata ? "entity" : "document";
+    if (metadata)
+        c.cols[1] = "period";
+    c.cols[lead] = "words";
     for (size_t k = 0; k < ncat; k++) {
         const char *name = tt_lexicon_category_name(lex, k);
         char *per = malloc(strlen(name) + 10);
@@ -236,39 +320,102 @@ int tt_cmd_tone(int argc, char **argv)
             goto oom;
         memcpy(per, name, strlen(name));
         memcpy(per + strlen(name), "_per_1000", 10);
-        c.cols[2 + 2 * k] = name;
-        c.cols[3 + 2 * k] = per;
+        c.cols[lead + 1 + 2 * k] = name;
+        c.cols[lead + 2 + 2 * k] = per;
     }
     c.cols[c.ncols - 3] = "net_tone";
     c.cols[c.ncols - 2] = "net_per_1000";
     c.cols[c.ncols - 1] = "negated";
     c.lex = lex;
-    if (!cli_expand_inputs(&inputs, argc - optind, argv + optind))
+    if (metadata) {
+        if (manifest_path ? !cli_load_manifest(&m, manifest_path)
+            : headers ? !cli_load_headers(&m, header_period, argc - optind, argv + optind,
+                                          &c.problems)
+                      : !cli_load_layout(&m, layout, argc - optind, argv + optind))
+            goto out;
+        if (tt_series_build(&series, m.docs, m.n, &sopt, &err)) {
+            cli_error("%s (choose document kinds with --kinds)", err.message);
+            goto out;
+        }
+    } else if (!cli_expand_inputs(&inputs, argc - optind, argv + optind)) {
         goto out;
+    }
     if (tt_outfile_open(&c.out, output, &c.err)) {
         cli_error("%s", tt_error_format(&c.err, msg, sizeof msg));
         goto out;
     }
     out_open = 1;
-    for (size_t i = 0; i < inputs.n; i++) {
-        if (inputs.items[i].status != TT_OK) {
-            cli_error("%s: %s (skipped)", inputs.items[i].path,
-                      inputs.items[i].message ? inputs.items[i].message : "cannot be read");
-            c.problems++;
-            continue;
+    if (!metadata) {
+        for (size_t i = 0; i < inputs.n; i++) {
+            if (inputs.items[i].status != TT_OK) {
+                cli_error("%s: %s (skipped)", inputs.items[i].path,
+                          inputs.items[i].message ? inputs.items[i].message : "cannot be read");
+                c.problems++;
+                continue;
+            }
+            if (!read_path(&c, reader, inputs.items[i].path, &ro))
+                goto out;
         }
-        tt_error_init(&err);
-        tt_status st = tt_reader_read(reader, inputs.items[i].path, &ro, on_doc, &c, NULL, &err);
-        if (st == TT_EIO && c.err.status) {
-            cli_error("%s", tt_error_format(&c.err, msg, sizeof msg));
-            goto out;
-        }
-        if (st) {
-            cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
-            c.problems++;
+    } else {
+        static const char *const pair_cols[] = { "entity", "base", "target", "category",
+                                                 "base_per_1000", "target_per_1000",
+                                                 "change_per_1000", "z", "p_value",
+                                                 "direction" };
+        c.grouping = 1;
+        if (tt_tone_scores_init(&prev, lex))
+            goto oom;
+        for (size_t g = 0; g < series.n_groups; g++) {
+            const tt_series_group *grp = &series.groups[g];
+            char period[TT_PERIOD_TEXT_MAX];
+            tt_period_format(&grp->period, period, sizeof period);
+            tt_tone_scores_reset(&c.all);
+            for (size_t d = 0; d < grp->n_docs; d++)
+                if (!read_path(&c, reader, m.docs[series.members[grp->first + d]].path, &ro))
+                    goto out;
+            if (!consecutive) {
+                if (write_row(&c, grp->entity, period, &c.all))
+                    goto write_fail;
+                continue;
+            }
+            int same_entity = g > 0 && !strcmp(series.groups[g - 1].entity, grp->entity);
+            if (same_entity) {
+                char base[TT_PERIOD_TEXT_MAX];
+                tt_period_format(&series.groups[g - 1].period, base, sizeof base);
+                for (size_t k = 0; k < ncat; k++) {
+                    tt_table_writer w;
+                    double z, pv;
+                    double r1 = prev.words ? 1000.0 * prev.weight[k] / (double)prev.words : NAN;
+                    double r2 = c.all.words ? 1000.0 * c.all.weight[k] / (double)c.all.words : NAN;
+                    tt_two_proportion_z(prev.weight[k], (double)prev.words, c.all.weight[k],
+                                        (double)c.all.words, &z, &pv);
+                    tt_status st = tt_table_begin(&w, c.format, &c.buf, pair_cols, 10, c.header);
+                    c.header = 0;
+                    if (!st) st = tt_table_cstr(&w, grp->entity);
+                    if (!st) st = tt_table_cstr(&w, base);
+                    if (!st) st = tt_table_cstr(&w, period);
+                    if (!st) st = tt_table_cstr(&w, tt_lexicon_category_name(lex, k));
+                    if (!st) st = tt_table_fixed(&w, r1, 3);
+                    if (!st) st = tt_table_fixed(&w, r2, 3);
+                    if (!st) st = tt_table_fixed(&w, r2 - r1, 3);
+                    if (!st) st = tt_table_fixed(&w, z, 3);
+                    if (!st) st = tt_table_sci(&w, pv, 4);
+                    if (!st)
+                        st = tt_table_cstr(&w, r2 > r1 ? "rise" : r2 < r1 ? "fall" : "same");
+                    if (!st) st = tt_table_end_row(&w);
+                    if (st)
+                        goto write_fail;
+                }
+            }
+            /* keep this period as the next pair's base */
+            prev.words = c.all.words;
+            prev.negated = c.all.negated;
+            for (size_t k = 0; k < ncat; k++) {
+                prev.weight[k] = c.all.weight[k];
+                prev.matches[k] = c.all.matches[k];
+            }
         }
     }
-    if (c.total && write_row(&c, "*", &c.all))
+    if (c.total && !metadata && write_row(&c, "*", NULL, &c.all))
         goto write_fail;
     if (cli_flush(&c.out, &c.buf, &c.err, 1) || tt_outfile_commit(&c.out, &c.err))
         goto write_fail;
@@ -288,11 +435,14 @@ out:
     if (out_open)
         tt_outfile_abort(&c.out);
     if (c.cols)
-        for (size_t k = 0; 3 + 2 * k < c.ncols - 3; k++)
-            free((char *)c.cols[3 + 2 * k]);
+        for (size_t k = 0; c.lead + 2 + 2 * k < c.ncols - 3; k++)
+            free((char *)c.cols[c.lead + 2 + 2 * k]);
     free(c.cols);
     free(negators);
     tt_reader_free(reader);
+    tt_tone_scores_release(&prev);
+    tt_series_release(&series);
+    tt_manifest_release(&m);
     tt_tone_scores_release(&c.doc);
     tt_tone_scores_release(&c.all);
     tt_tone_free(c.tone);
