@@ -12,6 +12,7 @@
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
 #include "termtide/segment.h"
+#include "termtide/termtable.h"
 #include "termtide/tone.h"
 #include "tt_internal.h"
 
@@ -20,6 +21,29 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
 
 #define MAX_HITS 16
 
+/* The token cache: raw token bytes (up to CACHE_RAW) to what the slow path
+ * makes of them: the normalized word, its word and stem hits, and whether it
+ * is a negator or the last word of some phrase. Normalization, stemming and
+ * the lookups are pure functions of the raw bytes, so entries never go
+ * stale; word frequencies are Zipf-like, so most tokens hit. An unkeyed
+ * index only risks misses, never wrong results: the whole key is compared. */
+#define CACHE_BITS 12
+#define CACHE_RAW 24
+#define CACHE_HITS 4
+#define F_EMPTY 1u
+#define F_NEGATOR 2u
+#define F_PHRASE_END 4u
+
+typedef struct cache_entry {
+    uint64_t raw[CACHE_RAW / 8];
+    uint8_t raw_len; /* 0: unused */
+    uint8_t word_len;
+    uint8_t n_hits;
+    uint8_t flags;
+    uint32_t hits[CACHE_HITS];
+    char word[CACHE_RAW];
+} cache_entry;
+
 struct tt_tone {
     tt_tone_options opt;
     tt_normalizer norm;
@@ -27,6 +51,9 @@ struct tt_tone {
     tt_buf word, stem, phrase;
     tt_buf ring[TT_LIMIT_LEXICON_PHRASE_WORDS];
     size_t ring_len, ring_head;
+    cache_entry *cache;
+    tt_termtable *phrase_ends; /* last words of the lexicon's phrases */
+    size_t slow_hits[MAX_HITS];
 };
 
 void tt_tone_options_init(tt_tone_options *o, const tt_lexicon *lex)
@@ -91,6 +118,23 @@ tt_tone *tt_tone_new(const tt_tone_options *opt)
         tt_tone_free(t);
         return NULL;
     }
+    t->cache = tt_calloc((size_t)1 << CACHE_BITS, sizeof *t->cache);
+    t->phrase_ends = tt_termtable_new();
+    if (!t->cache || !t->phrase_ends) {
+        tt_tone_free(t);
+        return NULL;
+    }
+    for (size_t i = 0; i < tt_lexicon_entry_count(opt->lexicon); i++) {
+        const tt_lexicon_entry *e = tt_lexicon_entry_at(opt->lexicon, i);
+        if (e->kind != TT_LEXICON_PHRASE)
+            continue;
+        const char *last = strrchr(e->term, ' ');
+        last = last ? last + 1 : e->term;
+        if (tt_termtable_add(t->phrase_ends, last, strlen(last), 1)) {
+            tt_tone_free(t);
+            return NULL;
+        }
+    }
     return t;
 }
 
@@ -105,6 +149,8 @@ void tt_tone_free(tt_tone *t)
     tt_buf_release(&t->phrase);
     for (size_t i = 0; i < TT_LIMIT_LEXICON_PHRASE_WORDS; i++)
         tt_buf_release(&t->ring[i]);
+    tt_free(t->cache);
+    tt_termtable_free(t->phrase_ends);
     tt_free(t);
 }
 
@@ -132,6 +178,74 @@ static void count_hits(tt_tone *t, const size_t *idx, size_t n, int negated, tt_
     }
 }
 
+/* What a token is to the scorer: its normalized word (*word, valid until
+ * the next token), up to MAX_HITS word and stem hits in *hits, and F_*
+ * flags; from the cache when the raw token was seen before. */
+static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **word,
+                         size_t *wlen, const size_t **hits, size_t *n_hits, unsigned *flags,
+                         size_t *scratch)
+{
+    const tt_lexicon *lex = t->opt.lexicon;
+    cache_entry *e = NULL;
+    uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
+    if (len <= CACHE_RAW) {
+        memcpy(key, raw, len);
+        uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
+                       (key[2] * 0x165667B19E3779F9ULL) ^ len;
+        e = &t->cache[(mix ^ (mix >> 29)) >> (64 - CACHE_BITS)];
+        if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
+            e->raw[2] == key[2]) {
+            for (size_t i = 0; i < e->n_hits; i++)
+                scratch[i] = e->hits[i];
+            *word = e->word;
+            *wlen = e->word_len;
+            *hits = scratch;
+            *n_hits = e->n_hits;
+            *flags = e->flags;
+            return TT_OK;
+        }
+    }
+    tt_status st = tt_normalize(&t->norm, raw, len, &t->word);
+    if (st)
+        return st;
+    unsigned f = 0;
+    size_t n = 0;
+    if (t->word.len == 0) {
+        f = F_EMPTY;
+    } else {
+        n = tt_lexicon_match(lex, TT_LEXICON_WORD, t->word.data, t->word.len, scratch, MAX_HITS);
+        if (n > MAX_HITS)
+            n = MAX_HITS;
+        if (t->stemmer) {
+            if ((st = tt_stem(t->stemmer, t->word.data, t->word.len, &t->stem)) != TT_OK)
+                return st;
+            size_t m = tt_lexicon_match(lex, TT_LEXICON_STEM, t->stem.data, t->stem.len,
+                                        scratch + n, MAX_HITS - n);
+            n += m < MAX_HITS - n ? m : MAX_HITS - n;
+        }
+        if (is_negator(t, t->word.data, t->word.len))
+            f |= F_NEGATOR;
+        if (tt_termtable_get(t->phrase_ends, t->word.data, t->word.len))
+            f |= F_PHRASE_END;
+    }
+    if (e && t->word.len <= CACHE_RAW && n <= CACHE_HITS) {
+        memcpy(e->raw, key, sizeof key);
+        e->raw_len = (uint8_t)len;
+        e->word_len = (uint8_t)t->word.len;
+        e->n_hits = (uint8_t)n;
+        e->flags = (uint8_t)f;
+        for (size_t i = 0; i < n; i++)
+            e->hits[i] = (uint32_t)scratch[i];
+        memcpy(e->word, t->word.data, t->word.len);
+    }
+    *word = t->word.data;
+    *wlen = t->word.len;
+    *hits = scratch;
+    *n_hits = n;
+    *flags = f;
+    return TT_OK;
+}
+
 static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_scores *s)
 {
     const tt_lexicon *lex = t->opt.lexicon;
@@ -152,24 +266,21 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
         }
         if (tok.kind != TT_TOKEN_WORD)
             continue;
-        tt_status st = tt_normalize(&t->norm, text + tok.off, tok.len, &t->word);
+        const char *word;
+        size_t wlen, nh;
+        const size_t *hits;
+        unsigned flags;
+        tt_status st = resolve(t, text + tok.off, tok.len, &word, &wlen, &hits, &nh, &flags,
+                               t->slow_hits);
         if (st == TT_ELIMIT)
             continue;
         if (st)
             return st;
-        if (t->word.len == 0)
+        if (flags & F_EMPTY)
             continue;
         s->words++;
         int negated = pos - last_negator <= (long)t->opt.window;
-        size_t n = tt_lexicon_match(lex, TT_LEXICON_WORD, t->word.data, t->word.len, idx,
-                                    MAX_HITS);
-        count_hits(t, idx, n, negated, s);
-        if (t->stemmer) {
-            if ((st = tt_stem(t->stemmer, t->word.data, t->word.len, &t->stem)) != TT_OK)
-                return st;
-            n = tt_lexicon_match(lex, TT_LEXICON_STEM, t->stem.data, t->stem.len, idx, MAX_HITS);
-            count_hits(t, idx, n, negated, s);
-        }
+        count_hits(t, hits, nh, negated, s);
         if (max_phrase > 1) {
             /* The ring keeps the last max_phrase words of this sentence;
              * the current word goes in after the newest, replacing the
@@ -180,10 +291,13 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
             else
                 t->ring_head = (t->ring_head + 1) % TT_LIMIT_LEXICON_PHRASE_WORDS;
             tt_buf_reset(&t->ring[slot]);
-            if ((st = tt_buf_append(&t->ring[slot], t->word.data, t->word.len)) != TT_OK)
+            if ((st = tt_buf_append(&t->ring[slot], word, wlen)) != TT_OK)
                 return st;
-            /* ring now ends with the current word; try every length >= 2 */
-            for (size_t words = 2; words <= max_phrase && words <= t->ring_len; words++) {
+            /* ring now ends with the current word; when some phrase ends
+             * with it, try every length >= 2 */
+            for (size_t words = 2; (flags & F_PHRASE_END) && words <= max_phrase &&
+                                   words <= t->ring_len;
+                 words++) {
                 tt_buf_reset(&t->phrase);
                 size_t first = (t->ring_head + t->ring_len - words) % TT_LIMIT_LEXICON_PHRASE_WORDS;
                 for (size_t w = 0; w < words; w++) {
@@ -192,7 +306,7 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
                         (st = tt_buf_append(&t->phrase, b->data, b->len)) != TT_OK)
                         return st;
                 }
-                n = tt_lexicon_match(lex, TT_LEXICON_PHRASE, t->phrase.data, t->phrase.len, idx,
+                size_t n = tt_lexicon_match(lex, TT_LEXICON_PHRASE, t->phrase.data, t->phrase.len, idx,
                                      MAX_HITS);
                 /* a phrase is negated when a negator precedes its first word */
                 int pneg = (pos - (long)(words - 1)) - last_negator <= (long)t->opt.window &&
@@ -200,7 +314,7 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
                 count_hits(t, idx, n, pneg, s);
             }
         }
-        if (is_negator(t, t->word.data, t->word.len))
+        if (flags & F_NEGATOR)
             last_negator = pos;
         pos++;
     }
