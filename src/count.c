@@ -172,35 +172,6 @@ static tt_status push_window(tt_counter *c, const char *term, size_t len, int ed
     return tt_buf_append(&c->win[slot].term, term, len);
 }
 
-/* The raw token as zero-padded little-endian words, built from fixed-size
- * loads (a variable-length memcpy into the key and reading it back as words
- * stalls on store forwarding, and this runs once per token). */
-static inline uint64_t load_upto8(const char *p, size_t n)
-{
-    const unsigned char *u = (const unsigned char *)p;
-    if (n >= 8) {
-        uint64_t v;
-        memcpy(&v, p, 8);
-        return v;
-    }
-    if (n >= 4) {
-        uint32_t a, b;
-        memcpy(&a, p, 4);
-        memcpy(&b, p + n - 4, 4);
-        return (uint64_t)a | ((uint64_t)b << ((n - 4) * 8));
-    }
-    if (n == 0)
-        return 0;
-    return (uint64_t)u[0] | ((uint64_t)u[n / 2] << (n / 2 * 8)) | ((uint64_t)u[n - 1] << ((n - 1) * 8));
-}
-
-static inline void load_key(const char *raw, size_t len, uint64_t key[CACHE_RAW / 8])
-{
-    key[0] = load_upto8(raw, len);
-    key[1] = len > 8 ? load_upto8(raw + 8, len - 8) : 0;
-    key[2] = len > 16 ? load_upto8(raw + 16, len - 16) : 0;
-}
-
 /* What a token becomes: its final term (a view into the cache or into a
  * counter buffer, valid until the next token), the term's table hash, and
  * CACHE_* flags. TT_ELIMIT when normalization outgrows its buffer. */
@@ -210,10 +181,8 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
     if (len <= CACHE_RAW) {
-        load_key(raw, len, key);
-        uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
-                       (key[2] * 0x165667B19E3779F9ULL) ^ len;
-        e = &c->cache[(mix ^ (mix >> 29)) >> (64 - CACHE_BITS) & ((1u << CACHE_BITS) - 1)];
+        tti_token_key(raw, len, key);
+        e = &c->cache[tti_token_slot(key, len, CACHE_BITS)];
         if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
             e->raw[2] == key[2]) {
             *term = e->term;

@@ -445,12 +445,8 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
     return st;
 }
 
-/* The shipped lexicons, compiled in from lexicons/ by tools/embed.c. */
-struct tti_embedded {
-    const char *name;
-    const char *text;
-};
-extern const struct tti_embedded tti_lexicon_files[];
+/* The shipped lexicons, compiled in from lexicons/ by tools/embed.c
+ * (tti_lexicon_files, declared in tt_internal.h). */
 
 const char *tt_builtin_lexicon(const char *name)
 {

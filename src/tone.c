@@ -189,10 +189,8 @@ static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **w
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
     if (len <= CACHE_RAW) {
-        memcpy(key, raw, len);
-        uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
-                       (key[2] * 0x165667B19E3779F9ULL) ^ len;
-        e = &t->cache[(mix ^ (mix >> 29)) >> (64 - CACHE_BITS)];
+        tti_token_key(raw, len, key);
+        e = &t->cache[tti_token_slot(key, len, CACHE_BITS)];
         if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
             e->raw[2] == key[2]) {
             for (size_t i = 0; i < e->n_hits; i++)

@@ -29,6 +29,56 @@ static inline int tti_ascii_lower(int c) {
  * 1 and stores 0xFFFD. n must be > 0. */
 size_t tti_utf8_decode(const unsigned char *s, size_t n, uint32_t *cp);
 
+/* A raw token of up to 24 bytes as three zero-padded little-endian words,
+ * built from fixed-size loads (a variable-length memcpy into the words and
+ * reading them back stalls on store forwarding; this runs once per token).
+ * Used as the key of the per-thread token caches (count.c, tone.c). */
+static inline uint64_t tti_load_upto8(const char *p, size_t n)
+{
+    const unsigned char *u = (const unsigned char *)p;
+    if (n >= 8) {
+        uint64_t v;
+        memcpy(&v, p, 8);
+        return v;
+    }
+    if (n >= 4) {
+        uint32_t a, b;
+        memcpy(&a, p, 4);
+        memcpy(&b, p + n - 4, 4);
+        return (uint64_t)a | ((uint64_t)b << ((n - 4) * 8));
+    }
+    if (n == 0)
+        return 0;
+    return (uint64_t)u[0] | ((uint64_t)u[n / 2] << (n / 2 * 8)) |
+           ((uint64_t)u[n - 1] << ((n - 1) * 8));
+}
+
+static inline void tti_token_key(const char *raw, size_t len, uint64_t key[3])
+{
+    key[0] = tti_load_upto8(raw, len);
+    key[1] = len > 8 ? tti_load_upto8(raw + 8, len - 8) : 0;
+    key[2] = len > 16 ? tti_load_upto8(raw + 16, len - 16) : 0;
+}
+
+/* The cache slot (of 1 << bits) for a token key: an unkeyed multiply-shift
+ * mix. Crafted collisions only cause cache misses, since callers compare
+ * the whole key. */
+static inline size_t tti_token_slot(const uint64_t key[3], size_t len, unsigned bits)
+{
+    uint64_t mix = (key[0] * 0x9E3779B97F4A7C15ULL) ^ (key[1] * 0xC2B2AE3D27D4EB4FULL) ^
+                   (key[2] * 0x165667B19E3779F9ULL) ^ len;
+    return (size_t)((mix ^ (mix >> 29)) >> (64 - bits));
+}
+
+/* A text compiled into the library by tools/embed.c (stop-word lists,
+ * lexicons); each generated table ends with a { NULL, NULL } entry. */
+struct tti_embedded {
+    const char *name;
+    const char *text;
+};
+extern const struct tti_embedded tti_stopword_lists[];
+extern const struct tti_embedded tti_lexicon_files[];
+
 /* Copies src into a fixed array, truncating, always NUL-terminated. */
 void tti_strlcpy(char *dst, const char *src, size_t size);
 
