@@ -63,6 +63,7 @@ typedef struct runner {
 typedef struct worker_ctx {
     runner *r;
     tt_counter *counter;
+    void *astate;          /* opt->analyse is set: the worker's own state */
     slot *s;
     size_t input;
     tt_termtable *partial; /* opt->total is set: this worker's running sum */
@@ -76,7 +77,38 @@ typedef struct worker_state {
     tt_reader *reader;
     tt_termtable *partial;
     tt_status partial_status;
+    void *astate;
+    int astate_ok;
 } worker_state;
+
+/* A worker's state: a counter, or the caller's analysis state. */
+static void worker_state_init(worker_state *ws, const tt_batch_options *opt,
+                              tt_termtable *partial)
+{
+    memset(ws, 0, sizeof *ws);
+    ws->reader = tt_reader_new();
+    if (opt->analyse) {
+        ws->astate = opt->worker_new ? opt->worker_new(opt->ctx) : NULL;
+        ws->astate_ok = !opt->worker_new || ws->astate;
+        return;
+    }
+    ws->astate_ok = 1;
+    ws->counter = tt_counter_new(&opt->count);
+    ws->partial = partial;
+}
+
+static int worker_state_ok(const worker_state *ws, const tt_batch_options *opt)
+{
+    return ws->reader && ws->astate_ok && (opt->analyse || ws->counter);
+}
+
+static void worker_state_release(worker_state *ws, const tt_batch_options *opt)
+{
+    tt_counter_free(ws->counter);
+    tt_reader_free(ws->reader);
+    if (opt->worker_free && ws->astate)
+        opt->worker_free(opt->ctx, ws->astate);
+}
 
 void tt_batch_options_init(tt_batch_options *o)
 {
@@ -155,15 +187,27 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     slot *s = w->s;
     tt_error err;
     tt_error_init(&err);
-    tt_termtable *table = tt_termtable_new();
+    const tt_batch_options *opt = w->r->opt;
+    tt_termtable *table = NULL;
+    tt_buf out;
+    tt_buf_init(&out, 0);
     tt_doc_stats stats;
     memset(&stats, 0, sizeof stats);
-    tt_status st = table ? tt_counter_count(w->counter, doc->blocks, table, &stats) : TT_ENOMEM;
+    tt_status st;
+    if (opt->analyse) {
+        st = opt->analyse(opt->ctx, w->astate, doc, &out, &stats);
+    } else {
+        table = tt_termtable_new();
+        st = table ? tt_counter_count(w->counter, doc->blocks, table, &stats) : TT_ENOMEM;
+    }
     if (st) {
-        tt_error_set(&err, st, doc->name, -1, "%s while counting",
-                     st == TT_ELIMIT ? "too many distinct terms" : tt_status_name(st));
+        tt_error_set(&err, st, doc->name, -1, "%s while %s",
+                     st == TT_ELIMIT && !opt->analyse ? "too many distinct terms"
+                                                      : tt_status_name(st),
+                     opt->analyse ? "analysing" : "counting");
         add_problem(s, doc->name, &err, 1);
         tt_termtable_free(table);
+        tt_buf_release(&out);
         return TT_OK; /* go on with the other parts of a wrapper */
     }
     if (doc->notes && doc->notes[0]) {
@@ -183,6 +227,7 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     event *e = slot_push(s);
     if (!e) {
         tt_termtable_free(table);
+        tt_buf_release(&out);
         return TT_OK;
     }
     e->kind = EV_DOC;
@@ -199,19 +244,19 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     e->bytes = doc->raw_len;
     e->stats = stats;
     e->table = table;
-    tt_buf_init(&e->prepared, 0);
+    e->prepared = out; /* moved: the event owns it now */
     if (!e->name || !e->path || !e->type || !e->entity || !e->period || !e->form || !e->notes) {
         s->oom = 1;
         return TT_OK;
     }
-    if (w->partial) {
+    if (w->partial && table) {
         tt_status mst = tt_termtable_merge(w->partial, table);
         if (mst && *w->partial_status == TT_OK)
             *w->partial_status = mst;
         tt_termtable_free(table);
         e->table = NULL;
     }
-    if (w->r->opt->prepare) {
+    if (opt->prepare && !opt->analyse) {
         tt_doc_result res = result_of(e, w->input);
         e->prepare_status = w->r->opt->prepare(w->r->opt->ctx, &res, &e->prepared);
     }
@@ -232,12 +277,12 @@ static void process_input(runner *r, worker_state *ws, size_t i, slot *s)
     struct stat sb;
     if (strcmp(in->path, "-") != 0 && stat(in->path, &sb) == 0)
         s->bytes = (uint64_t)sb.st_size;
-    if (!ws->counter || !ws->reader || (r->opt->total && !ws->partial)) {
+    if (!worker_state_ok(ws, r->opt) || (r->opt->total && !r->opt->analyse && !ws->partial)) {
         tt_error_set(&err, TT_ENOMEM, in->path, -1, "out of memory");
         add_problem(s, in->path, &err, 1);
         return;
     }
-    worker_ctx w = { r, ws->counter, s, i, ws->partial, &ws->partial_status };
+    worker_ctx w = { r, ws->counter, ws->astate, s, i, ws->partial, &ws->partial_status };
     size_t parts_skipped = 0;
     tt_status st = tt_reader_read(ws->reader, in->path, &r->opt->read, on_doc, &w,
                                   &parts_skipped, &err);
@@ -254,8 +299,9 @@ static void process_input(runner *r, worker_state *ws, size_t i, slot *s)
 static void *worker_main(void *arg)
 {
     runner *r = arg;
-    worker_state ws = { tt_counter_new(&r->opt->count), tt_reader_new(),
-                        r->opt->total ? tt_termtable_new() : NULL, TT_OK };
+    worker_state ws;
+    worker_state_init(&ws, r->opt,
+                      r->opt->total && !r->opt->analyse ? tt_termtable_new() : NULL);
     pthread_mutex_lock(&r->lock);
     for (;;) {
         while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)
@@ -275,8 +321,7 @@ static void *worker_main(void *arg)
     if (ws.partial_status && r->total_status == TT_OK)
         r->total_status = ws.partial_status;
     pthread_mutex_unlock(&r->lock);
-    tt_counter_free(ws.counter);
-    tt_reader_free(ws.reader);
+    worker_state_release(&ws, r->opt);
     return NULL;
 }
 
@@ -355,10 +400,10 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
 
     if (threads == 1) {
         /* One thread: documents are added straight to the caller's total. */
-        worker_state ws = { tt_counter_new(&opt->count), tt_reader_new(), opt->total, TT_OK };
-        if (!ws.counter || !ws.reader) {
-            tt_counter_free(ws.counter);
-            tt_reader_free(ws.reader);
+        worker_state ws;
+        worker_state_init(&ws, opt, opt->analyse ? NULL : opt->total);
+        if (!worker_state_ok(&ws, opt)) {
+            worker_state_release(&ws, opt);
             tt_free(r.slots);
             return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory (or bad count options)");
         }
@@ -370,8 +415,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
             if (opt->on_progress)
                 opt->on_progress(opt->ctx, i + 1, inputs->n, sum->bytes, bytes_total);
         }
-        tt_counter_free(ws.counter);
-        tt_reader_free(ws.reader);
+        worker_state_release(&ws, opt);
         tt_free(r.slots);
         r.total_status = ws.partial_status;
         if (!st && r.total_status)

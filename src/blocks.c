@@ -95,3 +95,78 @@ const char *tt_block_kind_name(tt_block_kind kind)
     }
     return "unknown";
 }
+
+/* White space extraction collapses: ASCII white space and U+00A0. Returns
+ * its length at raw[i], 0 when none. */
+static size_t ws_len(const char *raw, size_t n, size_t i)
+{
+    unsigned char c = (unsigned char)raw[i];
+    if (tti_is_ascii_space(c))
+        return 1;
+    if (c == 0xC2 && i + 1 < n && (unsigned char)raw[i + 1] == 0xA0)
+        return 2;
+    return 0;
+}
+
+/* The length of a character reference at raw[r] ("&amp;", "&#8212;"), 0
+ * when none. */
+static size_t ref_len(const char *raw, size_t n, size_t r)
+{
+    size_t k = r + 1;
+    while (k < n && k - r <= 32 && (tti_is_ascii_alpha((unsigned char)raw[k]) ||
+                                    tti_is_ascii_digit((unsigned char)raw[k]) || raw[k] == '#'))
+        k++;
+    return k < n && raw[k] == ';' && k > r + 1 ? k + 1 - r : 0;
+}
+
+long long tt_blocks_source_offset(const tt_blocks *b, size_t i, size_t off, const char *raw,
+                                  size_t raw_len, int html)
+{
+    if (i >= b->n || b->items[i].src_off < 0 || (size_t)b->items[i].src_off > raw_len)
+        return -1;
+    const char *t = b->text.data + b->items[i].off;
+    size_t tn = b->items[i].len < off ? b->items[i].len : off;
+    size_t r = (size_t)b->items[i].src_off, k = 0;
+    /* Walk block and source in step: equal bytes advance both; a block
+     * space eats a run of source white space; source white space the block
+     * dropped (a hyphenated line end) is skipped; markup is skipped; a
+     * character reference stands for one block character. */
+    while (k < tn && r < raw_len) {
+        size_t w;
+        if (html && raw[r] == '&' && (w = ref_len(raw, raw_len, r)) != 0) {
+            r += w;
+            uint32_t cp;
+            k += tti_utf8_decode((const unsigned char *)t + k, b->items[i].len - k, &cp);
+        } else if (t[k] == raw[r]) {
+            k++;
+            r++;
+        } else if ((w = ws_len(raw, raw_len, r)) != 0) {
+            r += w;
+            while (r < raw_len && (w = ws_len(raw, raw_len, r)) != 0)
+                r += w;
+            if (t[k] == ' ')
+                k++;
+        } else if (html && raw[r] == '<') {
+            const char *gt = memchr(raw + r, '>', raw_len - r);
+            if (!gt)
+                break;
+            r = (size_t)(gt - raw) + 1;
+        } else {
+            break; /* lost step: the best position found so far */
+        }
+    }
+    /* land on the character itself, not on white space or markup before it */
+    for (;;) {
+        size_t w;
+        if (r < raw_len && (w = ws_len(raw, raw_len, r)) != 0)
+            r += w;
+        else if (html && r < raw_len && raw[r] == '<' && k < b->items[i].len && t[k] != '<') {
+            const char *gt = memchr(raw + r, '>', raw_len - r);
+            if (!gt)
+                break;
+            r = (size_t)(gt - raw) + 1;
+        } else
+            break;
+    }
+    return (long long)r;
+}

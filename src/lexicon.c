@@ -20,6 +20,7 @@
 typedef struct entry {
     tt_lexicon_entry pub;
     char *key;
+    char *written;
     size_t next; /* index + 1 of the next entry with the same key, 0 = none */
 } entry;
 
@@ -50,8 +51,10 @@ void tt_lexicon_free(tt_lexicon *lex)
 {
     if (!lex)
         return;
-    for (size_t i = 0; i < lex->n; i++)
+    for (size_t i = 0; i < lex->n; i++) {
         tt_free(lex->entries[i].key);
+        tt_free(lex->entries[i].written);
+    }
     tt_free(lex->entries);
     for (size_t i = 0; i < lex->n_categories; i++)
         tt_free(lex->categories[i]);
@@ -264,7 +267,7 @@ static tt_status make_key(loader *L, const char *t, size_t n, tt_lexicon_kind *k
 }
 
 static tt_status add_entry(loader *L, tt_lexicon_kind kind, size_t words, size_t category,
-                           double weight, long line)
+                           double weight, long line, const char *written, size_t written_len)
 {
     tt_lexicon *lex = L->lex;
     if (lex->n == lex->cap) {
@@ -279,7 +282,12 @@ static tt_status add_entry(loader *L, tt_lexicon_kind kind, size_t words, size_t
     memset(e, 0, sizeof *e);
     if (!(e->key = tt_strndup(L->key.data, L->key.len)))
         return TT_ENOMEM;
+    if (!(e->written = tt_strndup(written, written_len))) {
+        tt_free(e->key);
+        return TT_ENOMEM;
+    }
     e->pub.term = e->key;
+    e->pub.written = e->written;
     e->pub.kind = kind;
     e->pub.category = category;
     e->pub.weight = weight;
@@ -294,6 +302,7 @@ static tt_status add_entry(loader *L, tt_lexicon_kind kind, size_t words, size_t
         tt_status st = tt_termtable_add(lex->index[kind], e->key, L->key.len, lex->n + 1);
         if (st) {
             tt_free(e->key);
+            tt_free(e->written);
             return st;
         }
     }
@@ -405,7 +414,7 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
         if (!st)
             st = category_index(lex, f[1], fl[1], &cat);
         if (!st)
-            st = add_entry(&L, kind, words, cat, weight, line);
+            st = add_entry(&L, kind, words, cat, weight, line, f[0], fl[0]);
         if (st)
             tt_error_set_line(err, st, name, line, "%s", tt_status_name(st));
     }
@@ -414,8 +423,10 @@ tt_status tt_lexicon_load_text(tt_lexicon *lex, const char *text, size_t len, co
     if (st) {
         /* Roll back this text: drop its entries from the chains and indexes
          * by rebuilding the indexes from the entries kept. */
-        for (size_t i = n_before; i < lex->n; i++)
+        for (size_t i = n_before; i < lex->n; i++) {
             tt_free(lex->entries[i].key);
+            tt_free(lex->entries[i].written);
+        }
         lex->n = n_before;
         for (size_t i = cats_before; i < lex->n_categories; i++)
             tt_free(lex->categories[i]);

@@ -559,3 +559,40 @@ void tt_two_proportion_z(double x1, double n1, double x2, double n2, double *z, 
     *z = (x2 / n2 - x1 / n1) / sqrt(var);
     *p = erfc(fabs(*z) / sqrt(2.0));
 }
+
+/* Per-class precision, recall and F1: the usual definitions (van Rijsbergen
+ * 1979 for F1), averaged as scikit-learn's average='macro'. */
+void tt_classification_scores(const uint64_t *matrix, size_t n, tt_class_scores *per_class,
+                              tt_class_scores *macro, double *accuracy)
+{
+    uint64_t total = 0, trace = 0;
+    memset(macro, 0, sizeof *macro);
+    for (size_t c = 0; c < n; c++) {
+        uint64_t tp = matrix[c * n + c], support = 0, predicted = 0;
+        for (size_t k = 0; k < n; k++) {
+            support += matrix[c * n + k];
+            predicted += matrix[k * n + c];
+        }
+        tt_class_scores *s = &per_class[c];
+        s->support = support;
+        s->predicted = predicted;
+        s->precision = predicted ? (double)tp / (double)predicted : 0.0;
+        s->recall = support ? (double)tp / (double)support : 0.0;
+        s->f1 = s->precision + s->recall > 0
+                    ? 2.0 * s->precision * s->recall / (s->precision + s->recall)
+                    : 0.0;
+        macro->precision += s->precision;
+        macro->recall += s->recall;
+        macro->f1 += s->f1;
+        macro->support += support;
+        macro->predicted += predicted;
+        total += support;
+        trace += tp;
+    }
+    if (n) {
+        macro->precision /= (double)n;
+        macro->recall /= (double)n;
+        macro->f1 /= (double)n;
+    }
+    *accuracy = total ? (double)trace / (double)total : NAN;
+}

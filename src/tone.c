@@ -8,6 +8,7 @@
  * one word lookup, one stem lookup when the lexicon has stems, and one
  * phrase lookup per phrase length. O(words × longest phrase). */
 #include <math.h>
+#include <stdlib.h>
 
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
@@ -54,6 +55,7 @@ struct tt_tone {
     cache_entry *cache;
     tt_termtable *phrase_ends; /* last words of the lexicon's phrases */
     size_t slow_hits[MAX_HITS];
+    tt_tone_scores sentence;   /* tt_tone_score_sentences' scratch */
 };
 
 void tt_tone_options_init(tt_tone_options *o, const tt_lexicon *lex)
@@ -70,10 +72,14 @@ tt_status tt_tone_scores_init(tt_tone_scores *s, const tt_lexicon *lex)
 {
     memset(s, 0, sizeof *s);
     s->n_categories = tt_lexicon_category_count(lex);
+    s->n_entries = tt_lexicon_entry_count(lex);
     size_t n = s->n_categories ? s->n_categories : 1;
+    size_t ne = s->n_entries ? s->n_entries : 1;
     s->weight = tt_calloc(n, sizeof *s->weight);
     s->matches = tt_calloc(n, sizeof *s->matches);
-    if (!s->weight || !s->matches) {
+    s->entry_hits = tt_calloc(ne, sizeof *s->entry_hits);
+    s->entry_negated = tt_calloc(ne, sizeof *s->entry_negated);
+    if (!s->weight || !s->matches || !s->entry_hits || !s->entry_negated) {
         tt_tone_scores_release(s);
         return TT_ENOMEM;
     }
@@ -84,8 +90,11 @@ void tt_tone_scores_release(tt_tone_scores *s)
 {
     tt_free(s->weight);
     tt_free(s->matches);
+    tt_free(s->entry_hits);
+    tt_free(s->entry_negated);
     s->weight = NULL;
     s->matches = NULL;
+    s->entry_hits = s->entry_negated = NULL;
 }
 
 void tt_tone_scores_reset(tt_tone_scores *s)
@@ -96,6 +105,151 @@ void tt_tone_scores_reset(tt_tone_scores *s)
         s->weight[i] = 0;
         s->matches[i] = 0;
     }
+    if (s->n_entries) {
+        memset(s->entry_hits, 0, s->n_entries * sizeof *s->entry_hits);
+        memset(s->entry_negated, 0, s->n_entries * sizeof *s->entry_negated);
+    }
+}
+
+tt_status tt_tone_scores_add(tt_tone_scores *dst, const tt_tone_scores *src)
+{
+    if (dst->n_categories != src->n_categories || dst->n_entries != src->n_entries)
+        return TT_EINVAL;
+    dst->words += src->words;
+    dst->negated += src->negated;
+    for (size_t k = 0; k < src->n_categories; k++) {
+        dst->weight[k] += src->weight[k];
+        dst->matches[k] += src->matches[k];
+    }
+    for (size_t e = 0; e < src->n_entries; e++) {
+        dst->entry_hits[e] += src->entry_hits[e];
+        dst->entry_negated[e] += src->entry_negated[e];
+    }
+    return TT_OK;
+}
+
+/* Packed form, native byte order (it never leaves the process):
+ * u64 n_categories, n_entries, words, negated, n_nonzero; per category
+ * double weight, u64 matches; per entry with matches u64 index, hits,
+ * negated. */
+static tt_status put_u64(tt_buf *b, uint64_t v) { return tt_buf_append(b, (const char *)&v, 8); }
+
+tt_status tt_tone_scores_pack(const tt_tone_scores *s, tt_buf *out)
+{
+    uint64_t nz = 0;
+    for (size_t e = 0; e < s->n_entries; e++)
+        nz += s->entry_hits[e] || s->entry_negated[e];
+    tt_status st = put_u64(out, s->n_categories);
+    if (!st) st = put_u64(out, s->n_entries);
+    if (!st) st = put_u64(out, s->words);
+    if (!st) st = put_u64(out, s->negated);
+    if (!st) st = put_u64(out, nz);
+    for (size_t k = 0; k < s->n_categories && !st; k++) {
+        st = tt_buf_append(out, (const char *)&s->weight[k], sizeof(double));
+        if (!st) st = put_u64(out, s->matches[k]);
+    }
+    for (size_t e = 0; e < s->n_entries && !st; e++) {
+        if (!s->entry_hits[e] && !s->entry_negated[e])
+            continue;
+        st = put_u64(out, e);
+        if (!st) st = put_u64(out, s->entry_hits[e]);
+        if (!st) st = put_u64(out, s->entry_negated[e]);
+    }
+    return st;
+}
+
+static int get_u64(const char **p, size_t *len, uint64_t *v)
+{
+    if (*len < 8)
+        return 0;
+    memcpy(v, *p, 8);
+    *p += 8;
+    *len -= 8;
+    return 1;
+}
+
+tt_status tt_tone_scores_add_packed(tt_tone_scores *dst, const char **data, size_t *len)
+{
+    const char *p = *data;
+    size_t n = *len;
+    uint64_t ncat, nent, words, negated, nz;
+    if (!get_u64(&p, &n, &ncat) || !get_u64(&p, &n, &nent) || !get_u64(&p, &n, &words) ||
+        !get_u64(&p, &n, &negated) || !get_u64(&p, &n, &nz) || ncat != dst->n_categories ||
+        nent != dst->n_entries || n / 16 < ncat || (n - 16 * ncat) / 24 < nz)
+        return TT_EINVAL;
+    dst->words += words;
+    dst->negated += negated;
+    for (size_t k = 0; k < ncat; k++) {
+        double w;
+        uint64_t m = 0;
+        memcpy(&w, p, sizeof w);
+        p += 8;
+        n -= 8;
+        if (!get_u64(&p, &n, &m))
+            return TT_EINVAL;
+        dst->weight[k] += w;
+        dst->matches[k] += m;
+    }
+    for (uint64_t i = 0; i < nz; i++) {
+        uint64_t e = 0, h = 0, ng = 0;
+        if (!get_u64(&p, &n, &e) || !get_u64(&p, &n, &h) || !get_u64(&p, &n, &ng) || e >= nent)
+            return TT_EINVAL;
+        dst->entry_hits[e] += h;
+        dst->entry_negated[e] += ng;
+    }
+    *data = p;
+    *len = n;
+    return TT_OK;
+}
+
+typedef struct top_sort {
+    tt_tone_contribution c;
+    const char *term;
+} top_sort;
+
+static int cmp_top(const void *a, const void *b)
+{
+    const top_sort *x = a, *y = b;
+    if (x->c.weight != y->c.weight)
+        return x->c.weight > y->c.weight ? -1 : 1;
+    if (x->c.matches != y->c.matches)
+        return x->c.matches > y->c.matches ? -1 : 1;
+    int r = strcmp(x->term, y->term);
+    if (r)
+        return r;
+    return x->c.negated - y->c.negated;
+}
+
+tt_status tt_tone_top(const tt_tone_scores *s, const tt_lexicon *lex, size_t category,
+                      long negative, tt_tone_contribution *out, size_t k, size_t *n)
+{
+    *n = 0;
+    size_t cand = 0;
+    for (size_t e = 0; e < s->n_entries; e++) {
+        const tt_lexicon_entry *le = tt_lexicon_entry_at(lex, e);
+        cand += (le->category == category && s->entry_hits[e]) +
+                (negative == (long)category && s->entry_negated[e] > 0);
+    }
+    if (!cand || !k)
+        return TT_OK;
+    top_sort *all = tt_calloc(cand, sizeof *all);
+    if (!all)
+        return TT_ENOMEM;
+    size_t m = 0;
+    for (size_t e = 0; e < s->n_entries; e++) {
+        const tt_lexicon_entry *le = tt_lexicon_entry_at(lex, e);
+        if (le->category == category && s->entry_hits[e])
+            all[m++] = (top_sort){ { e, 0, s->entry_hits[e],
+                                     (double)s->entry_hits[e] * le->weight }, le->term };
+        if (negative == (long)category && s->entry_negated[e])
+            all[m++] = (top_sort){ { e, 1, s->entry_negated[e],
+                                     (double)s->entry_negated[e] * le->weight }, le->term };
+    }
+    qsort(all, m, sizeof *all, cmp_top);
+    for (size_t i = 0; i < m && i < k; i++)
+        out[(*n)++] = all[i].c;
+    tt_free(all);
+    return TT_OK;
 }
 
 tt_tone *tt_tone_new(const tt_tone_options *opt)
@@ -151,6 +305,7 @@ void tt_tone_free(tt_tone *t)
         tt_buf_release(&t->ring[i]);
     tt_free(t->cache);
     tt_termtable_free(t->phrase_ends);
+    tt_tone_scores_release(&t->sentence);
     tt_free(t);
 }
 
@@ -172,6 +327,9 @@ static void count_hits(tt_tone *t, const size_t *idx, size_t n, int negated, tt_
             cat == (size_t)t->opt.positive) {
             cat = (size_t)t->opt.negative;
             s->negated++;
+            s->entry_negated[idx[i]]++;
+        } else {
+            s->entry_hits[idx[i]]++;
         }
         s->weight[cat] += e->weight;
         s->matches[cat]++;
@@ -333,6 +491,37 @@ tt_status tt_tone_score_blocks(tt_tone *t, const tt_blocks *blocks, tt_tone_scor
 tt_status tt_tone_score_text(tt_tone *t, const char *text, size_t len, tt_tone_scores *s)
 {
     return score_block(t, text, len, s);
+}
+
+tt_status tt_tone_score_sentences(tt_tone *t, const char *text, size_t len,
+                                  tt_tone_sentence_fn fn, void *ctx)
+{
+    tt_tokenizer tk;
+    tt_token tok;
+    tt_tokenizer_init(&tk, text, len);
+    size_t start = 0;
+    int started = 0;
+    tt_status st = TT_OK;
+    if (!t->sentence.weight && (st = tt_tone_scores_init(&t->sentence, t->opt.lexicon)))
+        return st;
+    /* A sentence runs from one sentence start to the next; each range is
+     * scored alone, so the scorer's sentence state starts fresh in it. */
+    for (;;) {
+        int more = tt_tokenizer_next(&tk, &tok);
+        if (more && !tok.sentence_start)
+            continue;
+        size_t end = more ? tok.off : len;
+        if (started) {
+            tt_tone_scores_reset(&t->sentence);
+            if ((st = score_block(t, text + start, end - start, &t->sentence)) != TT_OK ||
+                (st = fn(ctx, start, end - start, &t->sentence)) != TT_OK)
+                return st;
+        }
+        if (!more)
+            return TT_OK;
+        start = tok.off;
+        started = 1;
+    }
 }
 
 double tt_tone_net(const tt_tone_scores *s, long positive, long negative)

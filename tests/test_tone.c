@@ -2,6 +2,7 @@
  * beyond three words; across a sentence end), phrases within a sentence,
  * stem entries, and category shares of a fixture against an independent
  * computation at test time with Python's standard library (re). */
+#include <ctype.h>
 #include <math.h>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -169,6 +170,55 @@ static void test_shares_against_python(void **state)
     teardown_fixture(&f);
 }
 
+/* The entries behind a category, heaviest first; a negated positive entry
+ * stands under negative with negated = 1. */
+static void test_contributors(void **state)
+{
+    (void)state;
+    fixture f;
+    setup_fixture(&f);
+    score(&f, "Weak demand. A weak quarter and a decline. Not strong. Strong and good and "
+              "improved, improved, improved.");
+    tt_tone_contribution top[8];
+    size_t n = 0;
+    assert_int_equal(tt_tone_top(&f.s, f.lex, (size_t)f.neg, f.neg, top, 8, &n), TT_OK);
+    assert_int_equal(n, 3);
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[0].entry)->term, "weak");
+    assert_int_equal(top[0].matches, 2);
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[1].entry)->term, "decline");
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[2].entry)->term, "strong");
+    assert_int_equal(top[2].negated, 1);
+    assert_int_equal(tt_tone_top(&f.s, f.lex, (size_t)f.pos, f.neg, top, 2, &n), TT_OK);
+    assert_int_equal(n, 2);
+    /* improved: 3 x 0.5 = 1.5 outweighs strong and good (1 each) */
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[0].entry)->term, "improved");
+    assert_true(fabs(top[0].weight - 1.5) < 1e-12);
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[1].entry)->term, "good");
+    assert_string_equal(tt_lexicon_entry_at(f.lex, top[1].entry)->written, "good");
+    /* packing round trip, and sums */
+    tt_buf b;
+    tt_buf_init(&b, 0);
+    assert_int_equal(tt_tone_scores_pack(&f.s, &b), TT_OK);
+    assert_int_equal(tt_tone_scores_pack(&f.s, &b), TT_OK);
+    tt_tone_scores sum;
+    assert_int_equal(tt_tone_scores_init(&sum, f.lex), TT_OK);
+    const char *p = b.data;
+    size_t len = b.len;
+    assert_int_equal(tt_tone_scores_add_packed(&sum, &p, &len), TT_OK);
+    assert_int_equal(tt_tone_scores_add_packed(&sum, &p, &len), TT_OK);
+    assert_int_equal(len, 0);
+    assert_int_equal(sum.words, 2 * f.s.words);
+    assert_int_equal(sum.negated, 2);
+    for (size_t k = 0; k < sum.n_categories; k++)
+        assert_true(fabs(sum.weight[k] - 2 * f.s.weight[k]) < 1e-12);
+    len = 7; /* truncated: refused */
+    p = b.data;
+    assert_int_equal(tt_tone_scores_add_packed(&sum, &p, &len), TT_EINVAL);
+    tt_tone_scores_release(&sum);
+    tt_buf_release(&b);
+    teardown_fixture(&f);
+}
+
 static char *capture(const char *args, int *status)
 {
     char cmd[4096];
@@ -247,6 +297,217 @@ static void test_demo_story(void **state)
     free(out);
 }
 
+/* Output is identical for any thread count, in every view. */
+static void test_threads_identical(void **state)
+{
+    (void)state;
+    static const char *const views[] = {
+        "demo-corpus/hollowmere demo-corpus/ambleworth --total",
+        "--by part,role demo-corpus/hollowmere demo-corpus/ambleworth",
+        "--contributors --top 5 demo-corpus/hollowmere",
+        "--sentences demo-corpus/ambleworth/2024-Q3-call-transcript.txt "
+        "demo-corpus/ambleworth/2025-Q2-quarterly-report.htm",
+        "--speakers demo-corpus/hollowmere",
+        "--manifest demo-corpus/manifest.tsv --kinds call-transcript --by part --consecutive",
+    };
+    for (size_t i = 0; i < sizeof views / sizeof *views; i++) {
+        char args[512];
+        int s1, s2;
+        snprintf(args, sizeof args, "tone -q -j 1 %s", views[i]);
+        char *one = capture(args, &s1);
+        snprintf(args, sizeof args, "tone -q -j 2 %s", views[i]);
+        char *two = capture(args, &s2);
+        assert_int_equal(s1, 0);
+        assert_int_equal(s2, 0);
+        assert_true(strlen(one) > 100);
+        if (strcmp(one, two))
+            fail_msg("tone %s: -j 1 and -j 2 differ", views[i]);
+        free(one);
+        free(two);
+    }
+}
+
+/* --sentences offsets point at the sentence's first word in the file
+ * (plain text, gzip and HTML with markup and character references). */
+static void test_sentence_offsets(void **state)
+{
+    (void)state;
+    static const char *const files[] = { "demo-corpus/hollowmere/2024-Q2-call-transcript.txt",
+                                          "demo-corpus/hollowmere/FY2024-annual-report.htm",
+                                          "demo-corpus/ambleworth/2025-Q2-quarterly-report.htm" };
+    for (size_t i = 0; i < 3; i++) {
+        char args[512];
+        int st;
+        snprintf(args, sizeof args, "tone -q --no-header --sentences %s", files[i]);
+        char *out = capture(args, &st);
+        assert_int_equal(st, 0);
+        FILE *f = fopen(files[i], "rb");
+        assert_non_null(f);
+        static char raw[1 << 20];
+        size_t n = fread(raw, 1, sizeof raw, f);
+        fclose(f);
+        size_t rows = 0;
+        for (char *line = out, *end; (end = strchr(line, '\n')); line = end + 1) {
+            *end = '\0';
+            char *tab1 = strchr(line, '\t');
+            assert_non_null(tab1);
+            unsigned long long off = strtoull(tab1 + 1, NULL, 10);
+            const char *text = strrchr(line, '\t') + 1;
+            size_t w = 0; /* the sentence's first letters or digits, up to 4 */
+            while (w < 4 && (isalnum((unsigned char)text[w]) || (unsigned char)text[w] >= 0x80))
+                w++;
+            if (w == 0)
+                w = 1;
+            assert_true(off + w <= n);
+            if (memcmp(raw + off, text, w))
+                fail_msg("%s: offset %llu holds '%.*s', sentence starts '%.*s'", files[i], off,
+                         (int)w, raw + off, (int)w, text);
+            rows++;
+        }
+        assert_true(rows > 50);
+        free(out);
+    }
+}
+
+/* --labels: the confusion matrix and the scores against scikit-learn's
+ * sklearn.metrics.confusion_matrix and precision_recall_fscore_support
+ * (zero_division=0, average=None and 'macro') and accuracy_score on the
+ * same actual and predicted labels (Debian python3-sklearn). The predicted
+ * label of every unit is read back from the output: a unit not listed as
+ * misread was predicted as its actual label. */
+static void test_labels_against_sklearn(void **state)
+{
+    (void)state;
+    int st;
+    char *out = capture("tone -q --labels tests/fixtures/tone/labels.tsv", &st);
+    assert_int_equal(st, 0);
+    char truth_path[] = TT_TEST_TMP "tt_tone_labels_XXXXXX";
+    int fd = mkstemp(truth_path);
+    assert_true(fd >= 0);
+    FILE *tf = fdopen(fd, "w");
+    /* the actual labels in file order, then the misread predictions */
+    FILE *lf = fopen("tests/fixtures/tone/labels.tsv", "r");
+    char line[1024];
+    long lineno = 0;
+    while (fgets(line, sizeof line, lf)) {
+        lineno++;
+        if (line[0] == '#' || !strncmp(line, "document\t", 9))
+            continue;
+        line[strcspn(line, "\n")] = '\0';
+        fprintf(tf, "unit %ld %s\n", lineno, strrchr(line, '\t') + 1);
+    }
+    fclose(lf);
+    /* the three tables are separated by blank lines */
+    char *tables[3];
+    tables[0] = out;
+    tables[1] = strstr(tables[0], "\n\n");
+    assert_non_null(tables[1]);
+    *tables[1] = '\0';
+    tables[1] += 2;
+    tables[2] = strstr(tables[1], "\n\n");
+    assert_non_null(tables[2]);
+    *tables[2] = '\0';
+    tables[2] += 2;
+    for (char *l = strchr(tables[2], '\n') + 1, *end; (end = strchr(l, '\n')); l = end + 1) {
+        *end = '\0';
+        char *f[6] = { NULL, NULL, NULL, NULL, NULL, NULL };
+        int k = 0;
+        char *save = NULL;
+        for (char *t = strtok_r(l, "\t", &save); t && k < 6; t = strtok_r(NULL, "\t", &save))
+            f[k++] = t;
+        assert_true(k >= 5);
+        if (k == 5) { /* a document unit has an empty offset */
+            f[5] = f[4];
+            f[4] = f[3];
+            f[3] = f[2];
+            f[2] = f[1];
+        }
+        fprintf(tf, "pred %s %s\n", f[5], f[3]);
+    }
+    fprintf(tf, "matrix\n%s\nscores\n%s\n", tables[0], tables[1]);
+    fclose(tf);
+    char cmd[4096];
+    snprintf(cmd, sizeof cmd,
+             "%s -c '\n"
+             "import sys\n"
+             "from sklearn.metrics import confusion_matrix, precision_recall_fscore_support, accuracy_score\n"
+             "actual = {}; pred = {}; lines = open(sys.argv[1]).read().split(\"\\n\")\n"
+             "i = 0\n"
+             "while lines[i] != \"matrix\":\n"
+             "    kind, line, label = lines[i].split(\" \"); i += 1\n"
+             "    (actual if kind == \"unit\" else pred)[int(line)] = label\n"
+             "keys = sorted(actual)\n"
+             "y_true = [actual[k] for k in keys]; y_pred = [pred.get(k, actual[k]) for k in keys]\n"
+             "j = lines.index(\"scores\")\n"
+             "head = lines[i + 1].split(\"\\t\"); classes = head[1:-1]\n"
+             "assert classes == sorted(set(y_true) | set(y_pred)), classes\n"
+             "cm = confusion_matrix(y_true, y_pred, labels=classes)\n"
+             "for r, row in enumerate(lines[i + 2:i + 2 + len(classes)]):\n"
+             "    cells = row.split(\"\\t\")\n"
+             "    assert cells[0] == classes[r] and [int(x) for x in cells[1:-1]] == list(cm[r]), (row, cm[r])\n"
+             "    assert int(cells[-1]) == sum(cm[r])\n"
+             "p, r, f, s = precision_recall_fscore_support(y_true, y_pred, labels=classes, zero_division=0)\n"
+             "mp, mr, mf, _ = precision_recall_fscore_support(y_true, y_pred, labels=classes, zero_division=0, average=\"macro\")\n"
+             "rows = [x.split(\"\\t\") for x in lines[j + 2:] if x]\n"
+             "want = [(c, p[k], r[k], f[k], s[k]) for k, c in enumerate(classes)] + [(\"macro-average\", mp, mr, mf, len(y_true))]\n"
+             "for got, w in zip(rows, want):\n"
+             "    assert got[0] == w[0], (got, w)\n"
+             "    for a, b in zip(got[1:4], w[1:4]): assert abs(float(a) - b) < 5e-5, (got, w)\n"
+             "    assert int(got[4]) == w[4], (got, w)\n"
+             "acc = [x for x in rows if x[0] == \"accuracy\"][0]\n"
+             "assert abs(float(acc[1]) - accuracy_score(y_true, y_pred)) < 5e-5, acc\n"
+             "print(\"ok\", len(y_true), \"units\", len(classes), \"classes, macro F1 %%.4f\" %% mf)\n"
+             "' %s",
+             tt_test_python(), truth_path);
+    FILE *py = popen(cmd, "r");
+    assert_non_null(py);
+    char res[256] = "";
+    if (!fgets(res, sizeof res, py))
+        res[0] = '\0';
+    int pst = pclose(py);
+    if (pst != 0 || strncmp(res, "ok", 2))
+        fail_msg("scikit-learn disagrees (see the assertion above): %s", res);
+    print_message("%s", res);
+    unlink(truth_path);
+    free(out);
+}
+
+/* Bad --labels files: a malformed line, an offset that is no number, an
+ * offset where no sentence starts, an unreadable document, an empty file. */
+static void test_labels_bad_input(void **state)
+{
+    (void)state;
+    static const struct {
+        const char *text;
+        const char *message;
+    } cases[] = {
+        { "only-one-field\n", "line 1: expected document<TAB>label" },
+        { "demo-corpus/hollowmere/2024-Q2-call-transcript.txt\tabc\tnegative\n",
+          "line 1: offset: expected a whole number" },
+        { "demo-corpus/hollowmere/2024-Q2-call-transcript.txt\t5\tnegative\n",
+          "line 1: demo-corpus/hollowmere/2024-Q2-call-transcript.txt sentence was not scored" },
+        { "no/such/file.txt\tnegative\n", "no/such/file.txt" },
+        { "# nothing\n", "no labelled units" },
+    };
+    for (size_t i = 0; i < sizeof cases / sizeof *cases; i++) {
+        char path[] = TT_TEST_TMP "tt_tone_badlabels_XXXXXX";
+        int fd = mkstemp(path);
+        assert_true(fd >= 0);
+        assert_int_equal(write(fd, cases[i].text, strlen(cases[i].text)),
+                         (ssize_t)strlen(cases[i].text));
+        close(fd);
+        char args[512];
+        int st;
+        snprintf(args, sizeof args, "tone -q --labels %s", path);
+        char *out = capture(args, &st);
+        assert_int_equal(st, 2);
+        if (!strstr(out, cases[i].message))
+            fail_msg("case %zu: no '%s' in: %s", i, cases[i].message, out);
+        free(out);
+        unlink(path);
+    }
+}
+
 /* The two-proportion z-test of a category's share between two periods:
  * z² and p against scipy.stats.chi2_contingency(correction=False) on the
  * same 2×2 table (Debian python3-scipy), with weighted (non-integer) counts
@@ -298,6 +559,11 @@ int main(void)
         cmocka_unit_test(test_shares_against_python),
         cmocka_unit_test(test_demo_story),
         cmocka_unit_test(test_two_proportion_against_scipy),
+        cmocka_unit_test(test_contributors),
+        cmocka_unit_test(test_threads_identical),
+        cmocka_unit_test(test_sentence_offsets),
+        cmocka_unit_test(test_labels_against_sklearn),
+        cmocka_unit_test(test_labels_bad_input),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -58,6 +58,20 @@ typedef struct tt_batch_options {
      * not depend on the order, so the result is the same for any thread
      * count. */
     tt_termtable *total;
+    /* Optional: analysis instead of counting. Each document goes to
+     * `analyse` in a worker thread with that worker's own state (made by
+     * worker_new and freed by worker_free, both in that thread; either may
+     * be NULL, then state is NULL); it appends what it makes of the document
+     * to out, delivered in order as r->prepared, and may fill *stats
+     * (words_read feeds the summary and the "no words found" note). Then no
+     * table is made: `count`, `prepare` and `total` are ignored and
+     * r->table is NULL. worker_new returning NULL is out of memory; a
+     * non-OK from analyse skips that document as a problem (TT_ENOMEM,
+     * TT_ELIMIT and the like), the batch goes on. */
+    void *(*worker_new)(void *ctx);
+    void (*worker_free)(void *ctx, void *state);
+    tt_status (*analyse)(void *ctx, void *state, const tt_document *doc, tt_buf *out,
+                         tt_doc_stats *stats);
 } tt_batch_options;
 
 void tt_batch_options_init(tt_batch_options *o);

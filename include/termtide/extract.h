@@ -57,6 +57,18 @@ tt_status tt_blocks_add(tt_blocks *b, tt_block_kind kind, const char *text,
 
 const char *tt_block_kind_name(tt_block_kind kind); /* "paragraph", ... */
 
+/* The byte offset in raw (the decoded document b was extracted from; see
+ * tt_document.raw) of byte `off` of block i's text, found by walking raw
+ * from the block's src_off in step with the block: a block space stands for
+ * a run of white space, white space the extraction dropped (a line-end
+ * hyphenation) is skipped; with html set, tags are skipped too and a
+ * character reference stands for one character. Exact for plain text; for
+ * HTML exact unless extraction dropped text inside the block (hidden
+ * elements), where the result is the last position matched. -1 when the
+ * block's src_off is unknown. O(off + markup skipped); never allocates. */
+long long tt_blocks_source_offset(const tt_blocks *b, size_t i, size_t off, const char *raw,
+                                  size_t raw_len, int html);
+
 typedef struct tt_extract_options {
     int drop_tables; /* 1: statement tables (<table>) are left out */
 } tt_extract_options;

@@ -23,6 +23,7 @@ typedef enum tt_lexicon_kind {
 typedef struct tt_lexicon_entry {
     const char *term;      /* the normalized key: word, stem, or words joined by
                               one space */
+    const char *written;   /* the term as the file writes it ("covenant*") */
     tt_lexicon_kind kind;
     size_t category;       /* index, see tt_lexicon_category_name */
     double weight;         /* > 0; 1 when the line gives none */

@@ -30,6 +30,12 @@
  * concern" is long at 8); bounds the phrase matcher's window. */
 #define TT_LIMIT_LEXICON_PHRASE_WORDS 8
 
+/* Longest speaker label in a transcript ("Name — Role, Firm: "), in bytes;
+ * a longer run before a colon is prose, not a label. Also bounds the
+ * speakers of one transcript, each a distinct label. */
+#define TT_LIMIT_SPEAKER_LABEL 120
+#define TT_LIMIT_SPEAKERS 4096
+
 /* Longest single token, in bytes. Longer runs (base64 blobs, a 50 MB line of
  * one "word") are skipped and counted in the document's note, not stored. */
 #define TT_LIMIT_TOKEN_BYTES 256
@@ -43,5 +49,46 @@
 
 /* Deepest directory recursion when expanding input paths. */
 #define TT_LIMIT_DIR_DEPTH 64
+
+/* Search (search.h). PCRE2's match limit: the most backtracking steps one
+ * match attempt may take. A phrase or a bounded pattern needs a few per
+ * character of a block; a nested quantifier such as (a+)+$ on a run of 40
+ * a's needs 2^40. Ten million (PCRE2's own default) finishes in well under a
+ * second with the JIT, so a hostile pattern costs at most that per block
+ * before its rule is stopped for the document and reported. */
+#define TT_LIMIT_REGEX_MATCH 10000000u
+
+/* PCRE2's depth limit (the interpreter's backtracking depth; the JIT is
+ * bounded by its stack instead). Real phrases nest a few levels; 10,000
+ * bounds recursion-like patterns without refusing long repeats of groups. */
+#define TT_LIMIT_REGEX_DEPTH 10000u
+
+/* PCRE2's heap limit for the interpreter's backtracking frames, in KiB:
+ * 20 MiB per thread (PCRE2's default), far above what a sane pattern needs. */
+#define TT_LIMIT_REGEX_HEAP_KIB 20480u
+
+/* The largest JIT stack per searcher thread (it grows from 32 KiB as
+ * needed); a pattern needing more stops with "JIT stack limit". */
+#define TT_LIMIT_REGEX_JIT_STACK ((size_t)1 << 20)
+
+/* Largest watch-list file, longest line, most rules and most problems kept
+ * for one report. A compliance watch-list has tens to a few hundred rules;
+ * each rule is compiled and run over every block. */
+#define TT_LIMIT_WATCHLIST_BYTES ((size_t)4 << 20)
+#define TT_LIMIT_WATCHLIST_LINE 8192
+#define TT_LIMIT_WATCHLIST_RULES 10000
+#define TT_LIMIT_WATCHLIST_PROBLEMS 100
+
+/* Largest N in near(A, B, N): a sentence rarely has 100 words. */
+#define TT_LIMIT_NEAR_WORDS 100
+
+/* Most hits listed per document (with offsets and context), and most bytes
+ * of context text per document; beyond them hits are still counted, and the
+ * number not listed is reported. A pattern such as "e" lists at most this. */
+#define TT_LIMIT_SEARCH_HITS 1000000
+#define TT_LIMIT_SEARCH_TEXT_BYTES ((size_t)256 << 20)
+
+/* Most words of context on each side of a hit. */
+#define TT_LIMIT_SEARCH_CONTEXT 200
 
 #endif

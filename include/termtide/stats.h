@@ -320,4 +320,21 @@ double tt_l2_normalize(double *v, size_t n);
 tt_status tt_tfidf_vector(const uint64_t *counts, const uint64_t *doc_freq, size_t n,
                           uint64_t n_docs, double *weights, tt_error *err);
 
+/* Scores of one class of a classification (and their macro averages). */
+typedef struct tt_class_scores {
+    double precision, recall, f1;
+    uint64_t support;    /* units of this class (actual) */
+    uint64_t predicted;  /* units predicted as this class */
+} tt_class_scores;
+
+/* Precision, recall and F1 per class from an n × n confusion matrix,
+ * matrix[actual * n + predicted]: precision = tp / predicted, recall = tp /
+ * support, F1 = 2PR / (P + R), each 0 where its denominator is 0 (the
+ * convention of scikit-learn's zero_division=0). macro holds the unweighted
+ * means over the n classes (macro F1 is the mean of the F1s, not the F1 of
+ * the mean P and R), support and predicted summed; *accuracy = trace /
+ * total, NaN when the matrix is empty. */
+void tt_classification_scores(const uint64_t *matrix, size_t n, tt_class_scores *per_class,
+                              tt_class_scores *macro, double *accuracy);
+
 #endif

@@ -241,12 +241,9 @@ void cli_pipeline_hooks(cli_pipeline *p)
     p->batch.on_progress = on_progress;
 }
 
-void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s)
+/* The summary's start: documents, skips by cause, wrapper parts left out. */
+static void summary_head(cli_pipeline *p, const char *cmd, const tt_batch_summary *s)
 {
-    clear_progress();
-    if (p->quiet)
-        return;
-    double secs = cli_now() - p->started;
     fprintf(stderr, "%s %s: %zu document%s read, %zu skipped", tt_prog, cmd, s->documents,
             s->documents == 1 ? "" : "s", s->skipped);
     if (s->skipped) {
@@ -262,9 +259,30 @@ void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summa
     if (s->parts_skipped)
         fprintf(stderr, ", %zu wrapper part%s left out", s->parts_skipped,
                 s->parts_skipped == 1 ? "" : "s");
+}
+
+void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s)
+{
+    clear_progress();
+    if (p->quiet)
+        return;
+    double secs = cli_now() - p->started;
+    summary_head(p, cmd, s);
     fprintf(stderr, ", %llu words, %llu terms counted, %.1f MB in %.2f s\n",
             (unsigned long long)s->words, (unsigned long long)s->terms, (double)s->bytes / 1e6,
             secs);
+}
+
+void cli_reading_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s,
+                         const char *extra)
+{
+    clear_progress();
+    if (p->quiet)
+        return;
+    double secs = cli_now() - p->started;
+    summary_head(p, cmd, s);
+    fprintf(stderr, ", %llu words, %.1f MB in %.2f s%s%s\n", (unsigned long long)s->words,
+            (double)s->bytes / 1e6, secs, extra && extra[0] ? ", " : "", extra ? extra : "");
 }
 
 tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force)

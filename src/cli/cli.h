@@ -40,6 +40,8 @@ int tt_cmd_trend(int argc, char **argv);
 extern const char tt_help_trend[];
 int tt_cmd_tone(int argc, char **argv);
 extern const char tt_help_tone[];
+int tt_cmd_search(int argc, char **argv);
+extern const char tt_help_search[];
 
 /* The program name for messages. */
 extern const char *tt_prog;
@@ -117,6 +119,10 @@ int cli_expand_inputs(tt_source_list *list, int argc, char **argv);
 void cli_pipeline_hooks(cli_pipeline *p);
 /* Prints the closing one-line summary on stderr (unless quiet). */
 void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s);
+/* The same for commands that read without counting terms: no term total;
+ * extra (may be NULL) is appended after a comma. */
+void cli_reading_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s,
+                         const char *extra);
 double cli_now(void);
 
 /* Writes buf to out when it holds 1 MiB or more, or always with force;
