@@ -233,6 +233,10 @@ static tt_status make_key(loader *L, const char *t, size_t n, tt_lexicon_kind *k
             *why = "a word of the term is empty once normalized";
             return TT_EPARSE;
         }
+        if (L->word.len > TT_LIMIT_LEXICON_WORD_BYTES) {
+            *why = "a word longer than TT_LIMIT_LEXICON_WORD_BYTES (64) bytes once normalized";
+            return TT_EPARSE;
+        }
         if (*words && (st = tt_buf_putc(&L->key, ' ')) != TT_OK)
             return st;
         if ((st = tt_buf_append(&L->key, L->word.data, L->word.len)) != TT_OK)

@@ -21,6 +21,8 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
                                                 "nobody" };
 
 #define MAX_HITS 16
+#define RING_WORD TT_LIMIT_LEXICON_WORD_BYTES
+#define RING_TOO_LONG 0xFF
 
 /* The token cache: raw token bytes (up to CACHE_RAW) to what the slow path
  * makes of them: the normalized word, its word and stem hits, and whether it
@@ -28,7 +30,7 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
  * the lookups are pure functions of the raw bytes, so entries never go
  * stale; word frequencies are Zipf-like, so most tokens hit. An unkeyed
  * index only risks misses, never wrong results: the whole key is compared. */
-#define CACHE_BITS 12
+#define CACHE_BITS 16
 #define CACHE_RAW 24
 #define CACHE_HITS 4
 #define F_EMPTY 1u
@@ -49,8 +51,13 @@ struct tt_tone {
     tt_tone_options opt;
     tt_normalizer norm;
     tt_stemmer *stemmer;
-    tt_buf word, stem, phrase;
-    tt_buf ring[TT_LIMIT_LEXICON_PHRASE_WORDS];
+    tt_buf word, stem;
+    /* the last words of the sentence, for phrases; a word longer than
+     * RING_WORD bytes is kept as "too long" (the lexicon refuses words that
+     * long, so no phrase through it can match) */
+    char ring[TT_LIMIT_LEXICON_PHRASE_WORDS][RING_WORD];
+    uint8_t ring_wlen[TT_LIMIT_LEXICON_PHRASE_WORDS]; /* RING_TOO_LONG: too long */
+    char phrase[TT_LIMIT_LEXICON_PHRASE_WORDS * (RING_WORD + 1)];
     size_t ring_len, ring_head;
     cache_entry *cache;
     tt_termtable *phrase_ends; /* last words of the lexicon's phrases */
@@ -265,9 +272,6 @@ tt_tone *tt_tone_new(const tt_tone_options *opt)
     tt_normalizer_init(&t->norm);
     tt_buf_init(&t->word, TT_LIMIT_TOKEN_BYTES * 8);
     tt_buf_init(&t->stem, TT_LIMIT_TOKEN_BYTES * 8);
-    tt_buf_init(&t->phrase, 0);
-    for (size_t i = 0; i < TT_LIMIT_LEXICON_PHRASE_WORDS; i++)
-        tt_buf_init(&t->ring[i], TT_LIMIT_TOKEN_BYTES * 8);
     if (tt_lexicon_has_stems(opt->lexicon) && !(t->stemmer = tt_stemmer_new())) {
         tt_tone_free(t);
         return NULL;
@@ -300,9 +304,6 @@ void tt_tone_free(tt_tone *t)
     tt_stemmer_free(t->stemmer);
     tt_buf_release(&t->word);
     tt_buf_release(&t->stem);
-    tt_buf_release(&t->phrase);
-    for (size_t i = 0; i < TT_LIMIT_LEXICON_PHRASE_WORDS; i++)
-        tt_buf_release(&t->ring[i]);
     tt_free(t->cache);
     tt_termtable_free(t->phrase_ends);
     tt_tone_scores_release(&t->sentence);
@@ -446,24 +447,34 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
                 t->ring_len++;
             else
                 t->ring_head = (t->ring_head + 1) % TT_LIMIT_LEXICON_PHRASE_WORDS;
-            tt_buf_reset(&t->ring[slot]);
-            if ((st = tt_buf_append(&t->ring[slot], word, wlen)) != TT_OK)
-                return st;
+            if (wlen <= RING_WORD) {
+                memcpy(t->ring[slot], word, wlen);
+                t->ring_wlen[slot] = (uint8_t)wlen;
+            } else {
+                t->ring_wlen[slot] = RING_TOO_LONG;
+            }
             /* ring now ends with the current word; when some phrase ends
              * with it, try every length >= 2 */
             for (size_t words = 2; (flags & F_PHRASE_END) && words <= max_phrase &&
                                    words <= t->ring_len;
                  words++) {
-                tt_buf_reset(&t->phrase);
                 size_t first = (t->ring_head + t->ring_len - words) % TT_LIMIT_LEXICON_PHRASE_WORDS;
-                for (size_t w = 0; w < words; w++) {
-                    const tt_buf *b = &t->ring[(first + w) % TT_LIMIT_LEXICON_PHRASE_WORDS];
-                    if ((w && (st = tt_buf_putc(&t->phrase, ' ')) != TT_OK) ||
-                        (st = tt_buf_append(&t->phrase, b->data, b->len)) != TT_OK)
-                        return st;
+                size_t plen = 0;
+                int fits = 1;
+                for (size_t w = 0; w < words && fits; w++) {
+                    size_t r = (first + w) % TT_LIMIT_LEXICON_PHRASE_WORDS;
+                    if (t->ring_wlen[r] == RING_TOO_LONG) {
+                        fits = 0;
+                        break;
+                    }
+                    if (w)
+                        t->phrase[plen++] = ' ';
+                    memcpy(t->phrase + plen, t->ring[r], t->ring_wlen[r]);
+                    plen += t->ring_wlen[r];
                 }
-                size_t n = tt_lexicon_match(lex, TT_LEXICON_PHRASE, t->phrase.data, t->phrase.len, idx,
-                                     MAX_HITS);
+                if (!fits)
+                    continue;
+                size_t n = tt_lexicon_match(lex, TT_LEXICON_PHRASE, t->phrase, plen, idx, MAX_HITS);
                 /* a phrase is negated when a negator precedes its first word */
                 int pneg = (pos - (long)(words - 1)) - last_negator <= (long)t->opt.window &&
                            last_negator < pos - (long)(words - 1);

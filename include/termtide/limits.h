@@ -30,6 +30,11 @@
  * concern" is long at 8); bounds the phrase matcher's window. */
 #define TT_LIMIT_LEXICON_PHRASE_WORDS 8
 
+/* Longest word of a lexicon term once normalized, in bytes; the tone
+ * scorer keeps the sentence's last words in fixed slots of this size to
+ * test phrases. The longest English words in filings are far shorter. */
+#define TT_LIMIT_LEXICON_WORD_BYTES 64
+
 /* Longest speaker label in a transcript ("Name — Role, Firm: "), in bytes;
  * a longer run before a colon is prose, not a label. Also bounds the
  * speakers of one transcript, each a distinct label. */
