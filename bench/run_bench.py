@@ -337,6 +337,8 @@ def main():
          f"{PY} {q(HERE)}/peers.py re-w {o('py-rew.tsv')} {files}", tmb, "text"),
         ("sk", "scikit-learn CountVectorizer",
          f"{PY} {q(HERE)}/peers.py sklearn {o('sk.tsv')} {files}", tmb, "text"),
+        ("tt-tone", "termtide tone (shipped lexicon, a row per document, -j 1)",
+         f"{q(tt)} tone -q {q(text)} > {o('tt-tone.tsv')}", tmb, "text"),
         ("tt-compare", "termtide compare: first half of the corpus against the second",
          f"{q(tt)} compare -q --base {q(halves[0])} --target {q(halves[1])} > {o('tt-compare.tsv')}",
          tmb, "text"),
@@ -385,6 +387,9 @@ def main():
     checks["tt-gz"] = fmt_check(read_termtide(o("tt-gz.tsv"))) + \
         ("; output identical to plain" if gz_same else "; OUTPUT DIFFERS FROM PLAIN")
     checks["sort"] = fmt_check(read_uniq(o("sort.txt")))
+    tone_rows = [ln.rstrip("\n").split("\t") for ln in open(o("tt-tone.tsv"), encoding="utf-8")]
+    checks["tt-tone"] = (f"{sum(int(r[1]) for r in tone_rows[1:]):,} words in "
+                         f"{len(tone_rows) - 1:,} rows")
     py_re = read_pairs(o("py-re.tsv"))
     checks["py-re"] = fmt_check(py_re)
     checks["py-rew"] = fmt_check(read_pairs(o("py-rew.tsv")))
@@ -544,6 +549,10 @@ def main():
     target("compare --consecutive over a 1,000-document, 8-quarter archive streams (peak RSS "
            "< 64 MB)", f"{rss_con:.1f} MB in {res['tt-consecutive']['wall']:.2f} s", rss_con < 64,
            "175 comparisons")
+    r_tone = res["tt-tone"]["wall"] / res["tt-docs"]["wall"]
+    target("tone adds ≤ 15% to count (a row per document against a table per document)",
+           ratio_str(r_tone), r_tone <= 1.15,
+           f"against count --total-only: {ratio_str(res['tt-tone']['wall'] / main_w)}")
     r_gz = res["tt-gz"]["wall"] / main_w
     target("gzip input ≤ 1.5× the time of plain input", ratio_str(r_gz), r_gz <= 1.5 and gz_same)
     if len(scaling) >= 3:

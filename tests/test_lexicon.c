@@ -97,6 +97,10 @@ static void test_errors(void **state)
     expect_error("wo*rd\tnegative\n", TT_EPARSE, 1, "'*'");
     expect_error("going concern*\tnegative\n", TT_EPARSE, 1, "single word");
     expect_error("a b c d e f g h i\tnegative\n", TT_EPARSE, 1, "phrase");
+    /* 65 letters: one over TT_LIMIT_LEXICON_WORD_BYTES */
+    expect_error("ok\tnegative\ngoing "
+                 "aaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaa\tnegative\n",
+                 TT_EPARSE, 2, "longer than");
     expect_error("ok\tnegative\nbad\xff\tnegative\n", TT_EPARSE, 2, "UTF-8");
     expect_error("ok\tnegative\nbad\x01word\tnegative\n", TT_EPARSE, 2, "control character");
     /* a 1 MB line */
