@@ -646,3 +646,8 @@ done:
         close(fd);
     return rc;
 }
+
+tt_status tt_source_list_add(tt_source_list *list, const char *path)
+{
+    return push_copy(list, path, TT_OK, NULL);
+}

@@ -96,4 +96,22 @@
 /* Most words of context on each side of a hit. */
 #define TT_LIMIT_SEARCH_CONTEXT 200
 
+/* Pictures (cloud.h, chart.h). Largest canvas side in px: the layout keeps
+ * one bit per pixel and a word's mask one byte per pixel, so 8,000 x 8,000 is
+ * 8 MB of grid; a poster is far smaller. */
+#define TT_LIMIT_CANVAS_SIDE 8000
+
+/* Most words in one cloud: layout time grows with words x canvas area;
+ * 5,000 words no longer read as a picture. */
+#define TT_LIMIT_CLOUD_WORDS 5000
+
+/* Longest term drawn, in bytes; a longer one is cut at a character
+ * boundary and marked with an ellipsis (a base64 run is not a word). */
+#define TT_LIMIT_CLOUD_WORD_BYTES 200
+
+/* Most outline points written per word's path, and most rows or points in
+ * one chart, so a hostile table cannot make a picture of gigabytes. */
+#define TT_LIMIT_SVG_POINTS 200000
+#define TT_LIMIT_CHART_ROWS 100000
+
 #endif

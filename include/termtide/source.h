@@ -39,6 +39,10 @@ void tt_source_list_release(tt_source_list *list);
  * frees them. */
 tt_status tt_source_expand(tt_source_list *list, const char *arg);
 
+/* Appends path as it is, unexpanded and unchecked (for paths that come
+ * from somewhere other than the file system, e.g. an index). TT_ENOMEM. */
+tt_status tt_source_list_add(tt_source_list *list, const char *path);
+
 /* Reads a whole file ("-" = stdin) into out (reset first), decompressing
  * gzip transparently (detected by its magic bytes 1f 8b, not the name;
  * concatenated members are read in turn, zero padding after the last one is

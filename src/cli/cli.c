@@ -8,6 +8,7 @@
 
 #include "termtide/alloc.h"
 #include "termtide/filter.h"
+#include "termtide/sha256.h"
 #include "cli.h"
 
 const char *tt_prog = "termtide";
@@ -299,5 +300,43 @@ int cli_parse_format(const char *arg, tt_format *out)
     if (tt_format_parse(arg, out) == TT_OK)
         return 1;
     cli_error("--format: expected tsv, csv or jsonl, got '%s'", arg);
+    return 0;
+}
+
+int cli_pipeline_profile(const cli_pipeline *p, tt_buf *out)
+{
+    const tt_count_options *c = &p->batch.count;
+    char line[512];
+    tt_buf_reset(out);
+    snprintf(line, sizeof line, "ngram=%d-%d stem=%d numbers=%d min_length=%zu stopwords=%s",
+             c->ngram_min, c->ngram_max, c->stem, c->keep_numbers, c->min_length,
+             p->no_stopwords ? "none" : "builtin");
+    if (tt_buf_append(out, line, strlen(line)))
+        goto oom;
+    if (tt_buf_append(out, " extra=", 7))
+        goto oom;
+    if (!p->n_extra && tt_buf_append(out, "none", 4))
+        goto oom;
+    for (size_t i = 0; i < p->n_extra; i++) {
+        char hex[65];
+        tt_error err;
+        tt_error_init(&err);
+        if (tt_sha256_file(p->extra_lists[i], hex, &err)) {
+            char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+            cli_error("%s", tt_error_format(&err, msg, sizeof msg));
+            return 0;
+        }
+        if ((i && tt_buf_putc(out, ',')) || tt_buf_append(out, hex, 16))
+            goto oom;
+    }
+    snprintf(line, sizeof line, " tables=%s doc_types=%s",
+             p->batch.read.drop_tables ? "drop" : "keep",
+             p->batch.read.doc_types ? p->batch.read.doc_types : "default");
+    if (tt_buf_append(out, line, strlen(line)) || tt_buf_putc(out, '\0'))
+        goto oom;
+    out->len--;
+    return 1;
+oom:
+    cli_error("out of memory");
     return 0;
 }

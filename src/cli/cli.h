@@ -40,8 +40,12 @@ int tt_cmd_trend(int argc, char **argv);
 extern const char tt_help_trend[];
 int tt_cmd_tone(int argc, char **argv);
 extern const char tt_help_tone[];
+int tt_cmd_index(int argc, char **argv);
+extern const char tt_help_index[];
 int tt_cmd_search(int argc, char **argv);
 extern const char tt_help_search[];
+int tt_cmd_cloud(int argc, char **argv);
+extern const char tt_help_cloud[];
 
 /* The program name for messages. */
 extern const char *tt_prog;
@@ -124,6 +128,10 @@ void cli_pipeline_summary(cli_pipeline *p, const char *cmd, const tt_batch_summa
 void cli_reading_summary(cli_pipeline *p, const char *cmd, const tt_batch_summary *s,
                          const char *extra);
 double cli_now(void);
+/* The counting profile of p for an index: the options that change what is
+ * counted, as space-separated key=value pairs (extra stop-word lists by the
+ * SHA-256 of their bytes). Prints the error and returns 0 on failure. */
+int cli_pipeline_profile(const cli_pipeline *p, tt_buf *out);
 
 /* Writes buf to out when it holds 1 MiB or more, or always with force;
  * empties buf. TT_EIO with err filled on a write error. */

@@ -20,6 +20,7 @@ static const tt_command commands[] = {
     { "describe", tt_cmd_describe, "a term's distribution, and where the latest document sits", tt_help_describe },
     { "trend", tt_cmd_trend, "terms across periods: rates, statistics, dispersion, tf-idf", tt_help_trend },
     { "tone", tt_cmd_tone, "words by lexicon category per document, with negation", tt_help_tone },
+    { "index", tt_cmd_index, "count files into a persistent index, reading only what changed", tt_help_index },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

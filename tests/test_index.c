@@ -1,0 +1,438 @@
+/* Tests of the index (src/index.c, src/cli/cmd_index.c): reading from the
+ * index gives byte for byte what reading the files gives (every count view,
+ * stderr notes included); incremental runs (unchanged, changed, new and
+ * removed files); a run killed with SIGKILL at several points leaves a
+ * database that SQLite's own PRAGMA integrity_check (run through Python's
+ * standard sqlite3 module, an implementation outside this project) calls
+ * "ok", holding whole files only, and the next run completes it; files that
+ * are not an index are refused by name and left untouched; a second writer
+ * is refused while readers go on; options that change counting are
+ * refused with the differing option named. */
+#include <fcntl.h>
+#include <signal.h>
+#include <sys/file.h>
+#include <sys/stat.h>
+#include <sys/wait.h>
+#include <time.h>
+#include <unistd.h>
+
+#include "tt_test.h"
+
+static char tmpdir[256];
+
+static char *run(const char *cmd, int *status)
+{
+    char full[8192];
+    snprintf(full, sizeof full, "%s", cmd);
+    FILE *p = popen(full, "r");
+    assert_non_null(p);
+    size_t cap = 1 << 16, n = 0, k;
+    char *out = malloc(cap);
+    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0) {
+        n += k;
+        if (n + 1 == cap) {
+            cap *= 2;
+            out = realloc(out, cap);
+        }
+    }
+    out[n] = '\0';
+    int st = pclose(p);
+    *status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
+    return out;
+}
+
+static char *slurp(const char *path, size_t *len)
+{
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        *len = 0;
+        return NULL;
+    }
+    fseek(f, 0, SEEK_END);
+    long n = ftell(f);
+    fseek(f, 0, SEEK_SET);
+    char *s = malloc((size_t)n + 1);
+    *len = fread(s, 1, (size_t)n, f);
+    s[*len] = '\0';
+    fclose(f);
+    return s;
+}
+
+/* The program's stdout and stderr (less the timing of the summary line)
+ * for one command line, into files under tmpdir named by tag. */
+static int tt(const char *args, const char *tag)
+{
+    char cmd[8192];
+    snprintf(cmd, sizeof cmd, "%s %s > %s/%s.out 2> %s/%s.err", tt_test_bin(), args, tmpdir, tag,
+             tmpdir, tag);
+    int st = system(cmd);
+    return WIFEXITED(st) ? WEXITSTATUS(st) : -1;
+}
+
+static int same_file(const char *a, const char *b)
+{
+    char pa[512], pb[512];
+    snprintf(pa, sizeof pa, "%s/%s", tmpdir, a);
+    snprintf(pb, sizeof pb, "%s/%s", tmpdir, b);
+    size_t na, nb;
+    char *x = slurp(pa, &na), *y = slurp(pb, &nb);
+    int same = x && y && na == nb && !memcmp(x, y, na);
+    if (!same)
+        print_message("%s and %s differ (%zu and %zu bytes)\n", a, b, na, nb);
+    free(x);
+    free(y);
+    return same;
+}
+
+/* Drops the lines holding " MB in " (the summary line, with its timing). */
+static void drop_summary(char *s)
+{
+    char *w = s;
+    for (char *line = s; *line;) {
+        char *end = strchr(line, '\n');
+        size_t len = end ? (size_t)(end - line) + 1 : strlen(line);
+        char save = line[len - (end ? 1 : 0)];
+        line[len - (end ? 1 : 0)] = '\0';
+        int keep = !strstr(line, " MB in ");
+        line[len - (end ? 1 : 0)] = save;
+        if (keep) {
+            memmove(w, line, len);
+            w += len;
+        }
+        line += len;
+    }
+    *w = '\0';
+}
+
+/* stderr without the closing summary line (it holds the time taken) */
+static int same_notes(const char *a, const char *b)
+{
+    char pa[512], pb[512];
+    snprintf(pa, sizeof pa, "%s/%s", tmpdir, a);
+    snprintf(pb, sizeof pb, "%s/%s", tmpdir, b);
+    size_t na, nb;
+    char *x = slurp(pa, &na), *y = slurp(pb, &nb);
+    int same = x && y;
+    if (same) {
+        drop_summary(x);
+        drop_summary(y);
+        same = !strcmp(x, y);
+        if (!same)
+            print_message("notes differ:\n%s\n---\n%s\n", x, y);
+    }
+    free(x);
+    free(y);
+    return same;
+}
+
+static int setup(void **state)
+{
+    (void)state;
+    snprintf(tmpdir, sizeof tmpdir, TT_TEST_TMP "tt_index_XXXXXX");
+    assert_non_null(mkdtemp(tmpdir));
+    return 0;
+}
+
+static int teardown(void **state)
+{
+    (void)state;
+    char cmd[512];
+    snprintf(cmd, sizeof cmd, "rm -rf %s", tmpdir);
+    return system(cmd);
+}
+
+/* Every count view from the index equals reading the files. */
+static void test_same_as_files(void **state)
+{
+    (void)state;
+    char args[1024];
+    snprintf(args, sizeof args, "index %s/demo.db demo-corpus/hollowmere demo-corpus/ambleworth",
+             tmpdir);
+    assert_int_equal(tt(args, "index"), 0);
+    static const char *const views[] = { "", "--show summary", "--show classes --total",
+                                         "--total-only -f jsonl", "--top 5 --per 1000 -f csv",
+                                         "--total -j 2" };
+    for (size_t i = 0; i < sizeof views / sizeof *views; i++) {
+        snprintf(args, sizeof args, "count %s demo-corpus/hollowmere demo-corpus/ambleworth",
+                 views[i]);
+        int a = tt(args, "files");
+        snprintf(args, sizeof args,
+                 "count %s --db %s/demo.db demo-corpus/hollowmere demo-corpus/ambleworth",
+                 views[i], tmpdir);
+        int b = tt(args, "db");
+        assert_int_equal(a, 0);
+        assert_int_equal(b, 0);
+        if (!same_file("files.out", "db.out") || !same_notes("files.err", "db.err"))
+            fail_msg("count %s: the index gives other output than the files", views[i]);
+    }
+    /* the same options with stems refused, the option named */
+    snprintf(args, sizeof args, "count --stem --db %s/demo.db", tmpdir);
+    assert_int_equal(tt(args, "stem"), 2);
+    char p[512];
+    snprintf(p, sizeof p, "%s/stem.err", tmpdir);
+    size_t n;
+    char *err = slurp(p, &n);
+    assert_non_null(strstr(err, "stem=0"));
+    assert_non_null(strstr(err, "stem=1"));
+    free(err);
+    /* a path the index does not hold is reported, the rest still counted */
+    snprintf(args, sizeof args, "count --db %s/demo.db demo-corpus/manifest.tsv "
+             "demo-corpus/hollowmere/2024-Q1-call-transcript.txt", tmpdir);
+    assert_int_equal(tt(args, "partial"), 2);
+    snprintf(p, sizeof p, "%s/partial.err", tmpdir);
+    err = slurp(p, &n);
+    assert_non_null(strstr(err, "demo-corpus/manifest.tsv: not in the index"));
+    free(err);
+}
+
+static void write_text(const char *name, const char *text)
+{
+    char p[512];
+    snprintf(p, sizeof p, "%s/docs/%s", tmpdir, name);
+    FILE *f = fopen(p, "w");
+    assert_non_null(f);
+    fputs(text, f);
+    fclose(f);
+}
+
+static void test_incremental(void **state)
+{
+    (void)state;
+    char cmd[1024], args[1024], p[512];
+    size_t n;
+    snprintf(cmd, sizeof cmd, "mkdir -p %s/docs && cp demo-corpus/hollowmere/2024-Q*-call-* "
+             "%s/docs/", tmpdir, tmpdir);
+    assert_int_equal(system(cmd), 0);
+    write_text("extra.txt", "Revenue rose. Margins held.\n");
+    snprintf(args, sizeof args, "index %s/inc.db %s/docs", tmpdir, tmpdir);
+    assert_int_equal(tt(args, "i1"), 0);
+    snprintf(p, sizeof p, "%s/i1.err", tmpdir);
+    char *err = slurp(p, &n);
+    assert_non_null(strstr(err, "5 new, 0 changed, 0 unchanged, 0 removed"));
+    free(err);
+    /* change one, add one, remove one */
+    write_text("extra.txt", "Revenue fell. Margins shrank.\n");
+    write_text("added.txt", "A new document about covenants.\n");
+    snprintf(cmd, sizeof cmd, "rm %s/docs/2024-Q1-call-transcript.txt", tmpdir);
+    assert_int_equal(system(cmd), 0);
+    snprintf(args, sizeof args, "index --prune %s/inc.db %s/docs", tmpdir, tmpdir);
+    assert_int_equal(tt(args, "i2"), 0);
+    snprintf(p, sizeof p, "%s/i2.err", tmpdir);
+    err = slurp(p, &n);
+    if (!strstr(err, "1 new, 1 changed, 3 unchanged, 1 removed"))
+        fail_msg("second run: %s", err);
+    free(err);
+    snprintf(args, sizeof args, "count %s/docs", tmpdir);
+    assert_int_equal(tt(args, "files"), 0);
+    snprintf(args, sizeof args, "count --db %s/inc.db", tmpdir);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_true(same_file("files.out", "db.out"));
+    snprintf(p, sizeof p, "%s/db.out", tmpdir);
+    char *out = slurp(p, &n);
+    assert_non_null(strstr(out, "\tshrank\t"));
+    assert_null(strstr(out, "\trose\t"));
+    assert_null(strstr(out, "2024-Q1-call"));
+    free(out);
+}
+
+/* PRAGMA integrity_check by Python's sqlite3 module; also that every file
+ * row has its documents (each test file holds one). */
+static void check_integrity(const char *db, long *files)
+{
+    char cmd[2048];
+    snprintf(cmd, sizeof cmd,
+             "%s -c 'import sqlite3, sys\n"
+             "c = sqlite3.connect(sys.argv[1])\n"
+             "print(c.execute(\"PRAGMA integrity_check\").fetchone()[0])\n"
+             "print(c.execute(\"SELECT count(*) FROM files\").fetchone()[0])\n"
+             "print(c.execute(\"SELECT count(*) FROM files f WHERE NOT EXISTS (SELECT 1 FROM documents d WHERE d.file = f.id)\").fetchone()[0])\n"
+             "' %s",
+             tt_test_python(), db);
+    int st;
+    char *out = run(cmd, &st);
+    assert_int_equal(st, 0);
+    char ok[64] = "";
+    long empty = -1;
+    assert_int_equal(sscanf(out, "%63s %ld %ld", ok, files, &empty), 3);
+    if (strcmp(ok, "ok") || empty != 0)
+        fail_msg("after SIGKILL: integrity_check says %s, %ld files without documents", ok,
+                 empty);
+    free(out);
+}
+
+static void test_kill9(void **state)
+{
+    (void)state;
+    char cmd[2048], db[512], args[2048];
+    /* 600 small documents: a run of a few tenths of a second */
+    snprintf(cmd, sizeof cmd,
+             "mkdir -p %s/many && for i in $(seq 1 150); do for f in demo-corpus/hollowmere/"
+             "2024-Q*-call-*; do cp $f %s/many/$i-$(basename $f); done; done",
+             tmpdir, tmpdir);
+    assert_int_equal(system(cmd), 0);
+    /* kill at a quarter, half and three quarters of a full run's time, so
+     * the kills land mid-run on a fast or a slow (sanitizer) build alike */
+    struct timespec t0, t1;
+    clock_gettime(CLOCK_MONOTONIC, &t0);
+    snprintf(args, sizeof args, "index -q %s/timing.db %s/many", tmpdir, tmpdir);
+    assert_int_equal(tt(args, "timing"), 0);
+    clock_gettime(CLOCK_MONOTONIC, &t1);
+    long full_ms = (t1.tv_sec - t0.tv_sec) * 1000 + (t1.tv_nsec - t0.tv_nsec) / 1000000;
+    long delays_ms[4] = { 1, full_ms / 4, full_ms / 2, 3 * full_ms / 4 };
+    for (size_t k = 0; k < 4; k++) {
+        snprintf(db, sizeof db, "%s/kill%zu.db", tmpdir, k);
+        char dir[512];
+        snprintf(dir, sizeof dir, "%s/many", tmpdir);
+        pid_t pid = fork();
+        assert_true(pid >= 0);
+        if (pid == 0) {
+            int devnull = open("/dev/null", O_WRONLY);
+            dup2(devnull, 1);
+            dup2(devnull, 2);
+            execl(tt_test_bin(), tt_test_bin(), "index", "-q", db, dir, (char *)NULL);
+            _exit(127);
+        }
+        struct timespec ts = { delays_ms[k] / 1000, (delays_ms[k] % 1000) * 1000000L };
+        nanosleep(&ts, NULL);
+        kill(pid, SIGKILL);
+        int st;
+        waitpid(pid, &st, 0);
+        long files = 0;
+        if (access(db, F_OK) == 0) {
+            check_integrity(db, &files);
+        }
+        print_message("killed after %ld of %ld ms: %ld of 600 files were committed\n",
+                      delays_ms[k], full_ms, files);
+        /* the next run completes it and gives what reading the files gives */
+        snprintf(args, sizeof args, "index -q %s %s", db, dir);
+        assert_int_equal(tt(args, "resume"), 0);
+        check_integrity(db, &files);
+        assert_int_equal(files, 600);
+    }
+    snprintf(args, sizeof args, "count --total-only %s/many", tmpdir);
+    assert_int_equal(tt(args, "files"), 0);
+    snprintf(args, sizeof args, "count --total-only --db %s", db);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_true(same_file("files.out", "db.out"));
+}
+
+/* Files that are not an index: refused by name, never written. */
+static void test_not_an_index(void **state)
+{
+    (void)state;
+    char path[512], args[1024], p[512], cmd[2048];
+    size_t n0, n1, n;
+    /* a text file */
+    snprintf(path, sizeof path, "%s/notes.txt", tmpdir);
+    FILE *f = fopen(path, "w");
+    fputs("These are notes, not a database. They must stay as they are.\n", f);
+    fclose(f);
+    /* a truncated index */
+    char trunc[512];
+    snprintf(trunc, sizeof trunc, "%s/trunc.db", tmpdir);
+    snprintf(args, sizeof args, "index -q %s demo-corpus/hollowmere", trunc);
+    assert_int_equal(tt(args, "full"), 0);
+    snprintf(cmd, sizeof cmd, "truncate -s 3000 %s && rm -f %s-wal %s-shm", trunc, trunc, trunc);
+    assert_int_equal(system(cmd), 0);
+    /* an SQLite database of something else */
+    char other[512];
+    snprintf(other, sizeof other, "%s/other.db", tmpdir);
+    snprintf(cmd, sizeof cmd,
+             "%s -c 'import sqlite3, sys; c = sqlite3.connect(sys.argv[1]); "
+             "c.execute(\"CREATE TABLE t(x)\"); c.commit()' %s", tt_test_python(), other);
+    assert_int_equal(system(cmd), 0);
+    const char *files[] = { path, trunc, other };
+    for (size_t i = 0; i < 3; i++) {
+        char *before = slurp(files[i], &n0);
+        for (int reader = 0; reader < 2; reader++) {
+            if (reader)
+                snprintf(args, sizeof args, "count --db %s", files[i]);
+            else
+                snprintf(args, sizeof args, "index %s demo-corpus/ambleworth", files[i]);
+            assert_int_equal(tt(args, "bad"), 2);
+            snprintf(p, sizeof p, "%s/bad.err", tmpdir);
+            char *err = slurp(p, &n);
+            if (!strstr(err, files[i]) ||
+                !(strstr(err, "not a termtide index") || strstr(err, "malformed")))
+                fail_msg("%s: %s", files[i], err);
+            free(err);
+        }
+        char *after = slurp(files[i], &n1);
+        assert_true(n0 == n1 && !memcmp(before, after, n0));
+        free(before);
+        free(after);
+    }
+    /* a missing index for reading */
+    snprintf(args, sizeof args, "count --db %s/missing.db", tmpdir);
+    assert_int_equal(tt(args, "missing"), 2);
+}
+
+/* A second writer is refused while the first holds the index; readers go on. */
+static void test_locked(void **state)
+{
+    (void)state;
+    char db[512], args[1024], p[512];
+    size_t n;
+    snprintf(db, sizeof db, "%s/locked.db", tmpdir);
+    snprintf(args, sizeof args, "index -q %s demo-corpus/hollowmere", db);
+    assert_int_equal(tt(args, "first"), 0);
+    int fd = open(db, O_RDWR);
+    assert_true(fd >= 0);
+    assert_int_equal(flock(fd, LOCK_EX | LOCK_NB), 0); /* as a running writer holds it */
+    snprintf(args, sizeof args, "index %s demo-corpus/ambleworth", db);
+    assert_int_equal(tt(args, "second"), 2);
+    snprintf(p, sizeof p, "%s/second.err", tmpdir);
+    char *err = slurp(p, &n);
+    assert_non_null(strstr(err, "another termtide run is writing"));
+    free(err);
+    snprintf(args, sizeof args, "count --total-only --db %s", db);
+    assert_int_equal(tt(args, "reader"), 0);
+    close(fd);
+    snprintf(args, sizeof args, "index -q %s demo-corpus/ambleworth", db);
+    assert_int_equal(tt(args, "third"), 0);
+}
+
+/* A directory the user cannot write: a new index there is refused with
+ * the file named. As root permissions do not bind, the program runs as the
+ * unprivileged user nobody. */
+static void test_readonly_dir(void **state)
+{
+    (void)state;
+    char dir[512], cmd[4096], p[512];
+    size_t n;
+    snprintf(dir, sizeof dir, "%s/ro", tmpdir);
+    mkdir(dir, 0555);
+    chmod(tmpdir, 0755);
+    if (geteuid() == 0)
+        snprintf(cmd, sizeof cmd, "setpriv --reuid=65534 --regid=65534 --clear-groups %s index "
+                 "%s/new.db %s/demo-corpus/hollowmere > %s/ro.out 2> %s/ro.err",
+                 tt_test_bin(), dir, getcwd(p, sizeof p), tmpdir, tmpdir);
+    else
+        snprintf(cmd, sizeof cmd, "%s index %s/new.db demo-corpus/hollowmere > %s/ro.out "
+                 "2> %s/ro.err", tt_test_bin(), dir, tmpdir, tmpdir);
+    int st = system(cmd);
+    snprintf(p, sizeof p, "%s/ro.err", tmpdir);
+    char *err = slurp(p, &n);
+    if (strstr(err, "setpriv")) {
+        print_message("skipped: cannot run as an unprivileged user here: %s\n", err);
+        free(err);
+        skip();
+    }
+    assert_int_equal(WEXITSTATUS(st), 2);
+    if (!strstr(err, "new.db") || !strstr(err, "ermission"))
+        fail_msg("read-only directory: %s", err);
+    free(err);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test_setup_teardown(test_same_as_files, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_incremental, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_kill9, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_not_an_index, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_readonly_dir, setup, teardown),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}
