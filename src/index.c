@@ -3,11 +3,11 @@
  * Schema (version 1; documented in the README):
  *   meta(key, value)            schema_version, profile, created_by
  *   files(id, path, sha256, size, parts_skipped, indexed_at)
- *   documents(id, file, ord, seq, name, kind, outer_kind, encoding, type,
+ *   documents(id, file, ord, seq, name, name_rel, kind, outer_kind, encoding, type,
  *             entity, period, form, notes, bytes, words_read, numbers,
  *             stopwords, short_words, terms_kept, overlong, sentences,
  *             distinct_terms, terms BLOB)
- *   problems(id, file, ord, name, status, line, offset, message, skipped)
+ *   problems(id, file, ord, name, name_rel, status, line, offset, message, skipped)
  *   terms(id, term)             the dictionary: every term once
  * A document's table is one BLOB: its (term id, count) pairs sorted by id,
  * each as the id's difference from the previous one and the count, both
@@ -16,6 +16,10 @@
  * term table from term to id + 1 for writing), so neither direction needs
  * a join or a lookup per term in SQLite. `ord` orders a file's documents
  * and problems as they arose, so a replay repeats them in that order.
+ * files.path is the file's absolute path with symlinks resolved, so any
+ * spelling of it finds it; a name that starts with the path as the run
+ * spelled it is kept without it (name_rel = 1) and a replay puts back the
+ * path as the query spells it, so output matches reading the files.
  *
  * Writes: one transaction per file, begun with BEGIN IMMEDIATE; new terms
  * go into the dictionary inside the same transaction, so a rollback also
@@ -48,6 +52,7 @@ struct tt_index {
     tt_termtable *id_of;     /* term -> id (the table's count) */
     int dict_loaded;
     /* the file being written */
+    char *spelled;           /* its path as the run spells it */
     long long file_id;
     long ord;
     sqlite3_stmt *ins_doc, *ins_problem, *ins_term;
@@ -61,7 +66,8 @@ static const char *const schema =
     " indexed_at TEXT NOT NULL);"
     "CREATE TABLE documents(id INTEGER PRIMARY KEY,"
     " file INTEGER NOT NULL REFERENCES files(id) ON DELETE CASCADE, ord INTEGER NOT NULL,"
-    " seq INTEGER NOT NULL, name TEXT NOT NULL, kind INTEGER NOT NULL,"
+    " seq INTEGER NOT NULL, name TEXT NOT NULL, name_rel INTEGER NOT NULL,"
+    " kind INTEGER NOT NULL,"
     " outer_kind INTEGER NOT NULL, encoding TEXT NOT NULL, type TEXT NOT NULL,"
     " entity TEXT NOT NULL, period TEXT NOT NULL, form TEXT NOT NULL, notes TEXT NOT NULL,"
     " bytes INTEGER NOT NULL, words_read INTEGER NOT NULL, numbers INTEGER NOT NULL,"
@@ -71,7 +77,8 @@ static const char *const schema =
     "CREATE INDEX documents_file ON documents(file, ord);"
     "CREATE TABLE problems(id INTEGER PRIMARY KEY,"
     " file INTEGER NOT NULL REFERENCES files(id) ON DELETE CASCADE, ord INTEGER NOT NULL,"
-    " name TEXT NOT NULL, status INTEGER NOT NULL, line INTEGER NOT NULL,"
+    " name TEXT NOT NULL, name_rel INTEGER NOT NULL, status INTEGER NOT NULL,"
+    " line INTEGER NOT NULL,"
     " offset INTEGER NOT NULL, message TEXT NOT NULL, skipped INTEGER NOT NULL);"
     "CREATE INDEX problems_file ON problems(file, ord);"
     "CREATE TABLE terms(id INTEGER PRIMARY KEY, term TEXT NOT NULL UNIQUE);";
@@ -160,6 +167,7 @@ void tt_index_close(tt_index *ix)
     tt_free(ix->term_of);
     tt_termtable_free(ix->id_of);
     tt_buf_release(&ix->blob);
+    tt_free(ix->spelled);
     tt_free(ix->path);
     tt_free(ix);
 }
@@ -331,15 +339,23 @@ tt_status tt_index_profile(tt_index *ix, const char *profile, tt_error *err)
     return st;
 }
 
+static char *canonical(const char *path);
+
 tt_status tt_index_file_lookup(tt_index *ix, const char *path, tt_index_file *out,
                                tt_error *err)
 {
     memset(out, 0, sizeof *out);
     sqlite3_stmt *q;
+    char *key = canonical(path);
+    if (!key)
+        return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
     tt_status st = prepare(ix, "SELECT sha256, size FROM files WHERE path = ?", &q, err);
-    if (st)
+    if (st) {
+        tt_free(key);
         return st;
-    sqlite3_bind_text(q, 1, path, -1, SQLITE_STATIC);
+    }
+    sqlite3_bind_text(q, 1, key, -1, SQLITE_TRANSIENT);
+    tt_free(key);
     int rc = sqlite3_step(q);
     if (rc == SQLITE_ROW) {
         out->found = 1;
@@ -429,8 +445,53 @@ static int get_varint(const unsigned char **p, const unsigned char *end, uint64_
     return 0;
 }
 
+static tt_status file_begin(tt_index *ix, const char *path, const char *sha256, uint64_t size,
+                            tt_error *err);
+
+/* The key a file is kept under: its absolute path with symlinks resolved
+ * (realpath), so "docs/a.txt" and "/home/x/docs/a.txt" are one file; for a
+ * path that no longer exists, the path made absolute against the working
+ * directory. NULL when out of memory. The caller frees it with tt_free. */
+static char *canonical(const char *path)
+{
+    char *r = realpath(path, NULL);
+    if (r) {
+        char *c = tt_strdup(r);
+        free(r);
+        return c;
+    }
+    if (path[0] == '/')
+        return tt_strdup(path);
+    char cwd[4096];
+    if (!getcwd(cwd, sizeof cwd))
+        return tt_strdup(path);
+    size_t a = strlen(cwd), b = strlen(path);
+    char *c = tt_malloc(a + b + 2);
+    if (!c)
+        return NULL;
+    memcpy(c, cwd, a);
+    c[a] = '/';
+    memcpy(c + a + 1, path, b + 1);
+    return c;
+}
+
 tt_status tt_index_file_begin(tt_index *ix, const char *path, const char *sha256, uint64_t size,
                               tt_error *err)
+{
+    char *key = canonical(path);
+    tt_free(ix->spelled);
+    ix->spelled = tt_strdup(path);
+    if (!key || !ix->spelled) {
+        tt_free(key);
+        return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
+    }
+    tt_status st = file_begin(ix, key, sha256, size, err);
+    tt_free(key);
+    return st;
+}
+
+static tt_status file_begin(tt_index *ix, const char *path, const char *sha256, uint64_t size,
+                            tt_error *err)
 {
     tt_status st = load_dictionary(ix, err);
     if (st)
@@ -556,11 +617,11 @@ tt_status tt_index_file_add_document(tt_index *ix, const tt_doc_result *r, tt_er
     if (st)
         return st;
     if (!ix->ins_doc &&
-        (st = prepare(ix, "INSERT INTO documents(file, ord, seq, name, kind, outer_kind, "
-                          "encoding, type, entity, period, form, notes, bytes, words_read, "
-                          "numbers, stopwords, short_words, terms_kept, overlong, sentences, "
-                          "distinct_terms, terms) VALUES(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, "
-                          "?, ?, ?, ?, ?, ?, ?, ?, ?, ?)", &ix->ins_doc, err)))
+        (st = prepare(ix, "INSERT INTO documents(file, ord, seq, name, name_rel, kind, "
+                          "outer_kind, encoding, type, entity, period, form, notes, bytes, "
+                          "words_read, numbers, stopwords, short_words, terms_kept, overlong, "
+                          "sentences, distinct_terms, terms) VALUES(?, ?, ?, ?, ?, ?, ?, ?, ?, "
+                          "?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)", &ix->ins_doc, err)))
         return st;
     sqlite3_stmt *q = ix->ins_doc;
     sqlite3_reset(q);
@@ -569,7 +630,12 @@ tt_status tt_index_file_add_document(tt_index *ix, const tt_doc_result *r, tt_er
     sqlite3_bind_int64(q, k++, ix->ord++);
     const char *hash = strrchr(r->name, '#');
     sqlite3_bind_int64(q, k++, hash && r->outer_kind == TT_KIND_WRAPPER ? strtoll(hash + 1, NULL, 10) : 0);
-    sqlite3_bind_text(q, k++, r->name, -1, SQLITE_STATIC);
+    /* the name without the path as spelled ("", "#1:10-Q"): a replay puts
+     * the path back as the query spells it */
+    size_t plen = r->path ? strlen(r->path) : 0;
+    int rel = plen && !strncmp(r->name, r->path, plen);
+    sqlite3_bind_text(q, k++, rel ? r->name + plen : r->name, -1, SQLITE_STATIC);
+    sqlite3_bind_int(q, k++, rel);
     sqlite3_bind_int(q, k++, (int)r->kind);
     sqlite3_bind_int(q, k++, (int)r->outer_kind);
     sqlite3_bind_text(q, k++, r->encoding ? r->encoding : "", -1, SQLITE_STATIC);
@@ -599,19 +665,25 @@ tt_status tt_index_file_add_problem(tt_index *ix, const char *name, const tt_err
 {
     tt_status st;
     if (!ix->ins_problem &&
-        (st = prepare(ix, "INSERT INTO problems(file, ord, name, status, line, offset, message, "
-                          "skipped) VALUES(?, ?, ?, ?, ?, ?, ?, ?)", &ix->ins_problem, err)))
+        (st = prepare(ix, "INSERT INTO problems(file, ord, name, name_rel, status, line, offset, "
+                          "message, skipped) VALUES(?, ?, ?, ?, ?, ?, ?, ?, ?)",
+                      &ix->ins_problem, err)))
         return st;
     sqlite3_stmt *q = ix->ins_problem;
     sqlite3_reset(q);
+    if (!name)
+        name = "";
+    size_t plen = ix->spelled ? strlen(ix->spelled) : 0;
+    int rel = plen && !strncmp(name, ix->spelled, plen);
     sqlite3_bind_int64(q, 1, ix->file_id);
     sqlite3_bind_int64(q, 2, ix->ord++);
-    sqlite3_bind_text(q, 3, name ? name : "", -1, SQLITE_STATIC);
-    sqlite3_bind_int(q, 4, (int)problem->status);
-    sqlite3_bind_int64(q, 5, problem->line);
-    sqlite3_bind_int64(q, 6, problem->offset);
-    sqlite3_bind_text(q, 7, problem->message, -1, SQLITE_STATIC);
-    sqlite3_bind_int(q, 8, skipped);
+    sqlite3_bind_text(q, 3, rel ? name + plen : name, -1, SQLITE_STATIC);
+    sqlite3_bind_int(q, 4, rel);
+    sqlite3_bind_int(q, 5, (int)problem->status);
+    sqlite3_bind_int64(q, 6, problem->line);
+    sqlite3_bind_int64(q, 7, problem->offset);
+    sqlite3_bind_text(q, 8, problem->message, -1, SQLITE_STATIC);
+    sqlite3_bind_int(q, 9, skipped);
     if (sqlite3_step(q) != SQLITE_DONE)
         return db_error(ix, err, "writing the index");
     return TT_OK;
@@ -661,8 +733,11 @@ tt_status tt_index_prune(tt_index *ix, const tt_source_list *keep, size_t *remov
     if (!present)
         return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
     tt_status st = TT_OK;
-    for (size_t i = 0; i < keep->n && !st; i++)
-        st = tt_termtable_add(present, keep->items[i].path, strlen(keep->items[i].path), 1);
+    for (size_t i = 0; i < keep->n && !st; i++) {
+        char *key = canonical(keep->items[i].path);
+        st = key ? tt_termtable_add(present, key, strlen(key), 1) : TT_ENOMEM;
+        tt_free(key);
+    }
     sqlite3_stmt *q = NULL, *del = NULL;
     if (!st && !(st = exec(ix, "BEGIN IMMEDIATE", err)) &&
         !(st = prepare(ix, "SELECT id, path FROM files", &q, err)) &&
@@ -742,10 +817,10 @@ static const char *col_text(sqlite3_stmt *q, int i)
 }
 
 /* Replays one file's events, in their order. */
-static tt_status replay_file(tt_index *ix, size_t input, long long file_id,
+static tt_status replay_file(tt_index *ix, size_t input, const char *path, long long file_id,
                              const tt_batch_options *opt, tt_batch_summary *sum,
                              sqlite3_stmt *docs, sqlite3_stmt *probs, tt_termtable *t,
-                             tt_buf *prepared, tt_error *err)
+                             tt_buf *prepared, tt_buf *name, tt_error *err)
 {
     sqlite3_reset(docs);
     sqlite3_reset(probs);
@@ -758,8 +833,14 @@ static tt_status replay_file(tt_index *ix, size_t input, long long file_id,
         if (pord < dord) {
             tt_error e;
             tt_error_init(&e);
+            tt_buf_reset(name);
+            const char *suffix = col_text(probs, 1);
+            if ((sqlite3_column_int(probs, 7) &&
+                 tt_buf_append(name, path, strlen(path))) ||
+                tt_buf_append(name, suffix, strlen(suffix) + 1))
+                return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
             e.status = (tt_status)sqlite3_column_int(probs, 2);
-            tti_strlcpy(e.file, col_text(probs, 1), sizeof e.file);
+            tti_strlcpy(e.file, name->data, sizeof e.file);
             e.line = (long)sqlite3_column_int64(probs, 3);
             e.offset = sqlite3_column_int64(probs, 4);
             tti_strlcpy(e.message, col_text(probs, 5), sizeof e.message);
@@ -769,7 +850,7 @@ static tt_status replay_file(tt_index *ix, size_t input, long long file_id,
             else
                 sum->notes++;
             if (opt->on_problem)
-                opt->on_problem(opt->ctx, col_text(probs, 1), &e, skipped);
+                opt->on_problem(opt->ctx, name->data, &e, skipped);
             prc = sqlite3_step(probs);
             continue;
         }
@@ -781,8 +862,13 @@ static tt_status replay_file(tt_index *ix, size_t input, long long file_id,
         tt_doc_result r;
         memset(&r, 0, sizeof r);
         r.input = input;
-        r.name = col_text(docs, 1);
-        r.path = ix->path; /* replaced below by the caller's path */
+        tt_buf_reset(name);
+        const char *suffix = col_text(docs, 1);
+        if ((sqlite3_column_int(docs, 20) && (st = tt_buf_append(name, path, strlen(path)))) ||
+            (st = tt_buf_append(name, suffix, strlen(suffix) + 1)))
+            return tt_error_set(err, st, ix->path, -1, "out of memory");
+        r.name = name->data;
+        r.path = path;
         r.kind = (tt_doc_kind)sqlite3_column_int(docs, 2);
         r.outer_kind = (tt_doc_kind)sqlite3_column_int(docs, 3);
         r.encoding = col_text(docs, 4);
@@ -799,7 +885,6 @@ static tt_status replay_file(tt_index *ix, size_t input, long long file_id,
         r.stats.terms_kept = (uint64_t)sqlite3_column_int64(docs, 15);
         r.stats.overlong = (uint64_t)sqlite3_column_int64(docs, 16);
         r.stats.sentences = (uint64_t)sqlite3_column_int64(docs, 17);
-        r.path = col_text(docs, 20);
         r.table = t;
         if (opt->total) {
             if ((st = tt_termtable_merge(opt->total, t)) != TT_OK)
@@ -837,8 +922,9 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
         return st;
     sqlite3_stmt *file = NULL, *docs = NULL, *probs = NULL;
     tt_termtable *t = tt_termtable_new();
-    tt_buf prepared;
+    tt_buf prepared, name;
     tt_buf_init(&prepared, 0);
+    tt_buf_init(&name, 0);
     if (!t) {
         st = tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
         goto done;
@@ -847,14 +933,13 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
     if ((st = exec(ix, "BEGIN", err)) ||
         (st = prepare(ix, "SELECT id, size, parts_skipped FROM files WHERE path = ?", &file,
                       err)) ||
-        (st = prepare(ix, "SELECT d.ord, d.name, d.kind, d.outer_kind, d.encoding, d.type, "
-                          "d.entity, d.period, d.form, d.notes, d.bytes, d.words_read, "
-                          "d.numbers, d.stopwords, d.short_words, d.terms_kept, d.overlong, "
-                          "d.sentences, d.distinct_terms, d.seq, f.path, d.terms FROM "
-                          "documents d JOIN files f ON f.id = d.file WHERE d.file = ? "
-                          "ORDER BY d.ord", &docs, err)) ||
-        (st = prepare(ix, "SELECT ord, name, status, line, offset, message, skipped FROM "
-                          "problems WHERE file = ? ORDER BY ord", &probs, err)))
+        (st = prepare(ix, "SELECT ord, name, kind, outer_kind, encoding, type, entity, "
+                          "period, form, notes, bytes, words_read, numbers, stopwords, "
+                          "short_words, terms_kept, overlong, sentences, distinct_terms, seq, "
+                          "name_rel, terms FROM documents WHERE file = ? ORDER BY ord", &docs,
+                      err)) ||
+        (st = prepare(ix, "SELECT ord, name, status, line, offset, message, skipped, name_rel "
+                          "FROM problems WHERE file = ? ORDER BY ord", &probs, err)))
         goto done;
     for (size_t i = 0; i < inputs->n && !st; i++) {
         const tt_source_entry *in = &inputs->items[i];
@@ -869,7 +954,13 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
             continue;
         }
         sqlite3_reset(file);
-        sqlite3_bind_text(file, 1, in->path, -1, SQLITE_STATIC);
+        char *key = canonical(in->path);
+        if (!key) {
+            st = tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
+            break;
+        }
+        sqlite3_bind_text(file, 1, key, -1, SQLITE_TRANSIENT);
+        tt_free(key);
         int rc = sqlite3_step(file);
         if (rc == SQLITE_DONE) {
             tt_error_set(&e, TT_ENOENT, in->path, -1, "not in the index %s", ix->path);
@@ -880,7 +971,8 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
             long long id = sqlite3_column_int64(file, 0);
             sum->bytes += (uint64_t)sqlite3_column_int64(file, 1);
             sum->parts_skipped += (size_t)sqlite3_column_int64(file, 2);
-            st = replay_file(ix, i, id, opt, sum, docs, probs, t, &prepared, err);
+            st = replay_file(ix, i, in->path, id, opt, sum, docs, probs, t, &prepared, &name,
+                             err);
         } else {
             st = db_error(ix, err, "reading the index");
         }
@@ -895,6 +987,7 @@ done:
         sqlite3_exec(ix->db, "COMMIT", NULL, NULL, NULL);
     tt_termtable_free(t);
     tt_buf_release(&prepared);
+    tt_buf_release(&name);
     return st;
 }
 

@@ -165,6 +165,18 @@ static void test_same_as_files(void **state)
         if (!same_file("files.out", "db.out") || !same_notes("files.err", "db.err"))
             fail_msg("count %s: the index gives other output than the files", views[i]);
     }
+    /* indexed under absolute paths, asked with relative ones: the same file,
+     * and the names as the query spells them */
+    char cwd[512];
+    assert_non_null(getcwd(cwd, sizeof cwd));
+    snprintf(args, sizeof args, "index -q %s/abs.db %s/demo-corpus/hollowmere", tmpdir, cwd);
+    assert_int_equal(tt(args, "abs"), 0);
+    assert_int_equal(tt("count --show summary demo-corpus/hollowmere", "files"), 0);
+    snprintf(args, sizeof args, "count --show summary --db %s/abs.db demo-corpus/hollowmere",
+             tmpdir);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_true(same_file("files.out", "db.out"));
+    assert_true(same_notes("files.err", "db.err"));
     /* the same options with stems refused, the option named */
     snprintf(args, sizeof args, "count --stem --db %s/demo.db", tmpdir);
     assert_int_equal(tt(args, "stem"), 2);
