@@ -337,6 +337,12 @@ def main():
          f"{PY} {q(HERE)}/peers.py re-w {o('py-rew.tsv')} {files}", tmb, "text"),
         ("sk", "scikit-learn CountVectorizer",
          f"{PY} {q(HERE)}/peers.py sklearn {o('sk.tsv')} {files}", tmb, "text"),
+        ("tt-index", "termtide index: a new index of the corpus (-j 1)",
+         f"rm -f {q(o('index.db'))}*; {q(tt)} index -q {q(o('index.db'))} {q(text)}", tmb, "text"),
+        ("tt-index-again", "termtide index again: nothing changed (SHA-256 of every file)",
+         f"{q(tt)} index -q {q(o('index.db'))} {q(text)}", tmb, "text"),
+        ("tt-db", "termtide count --db: a table per document from the index",
+         f"{ttc} --db {q(o('index.db'))} {q(text)} > {o('tt-db.tsv')}", tmb, "text"),
         ("tt-tone", "termtide tone (shipped lexicon, a row per document, -j 1)",
          f"{q(tt)} tone -q {q(text)} > {o('tt-tone.tsv')}", tmb, "text"),
         ("tt-compare", "termtide compare: first half of the corpus against the second",
@@ -387,6 +393,16 @@ def main():
     checks["tt-gz"] = fmt_check(read_termtide(o("tt-gz.tsv"))) + \
         ("; output identical to plain" if gz_same else "; OUTPUT DIFFERS FROM PLAIN")
     checks["sort"] = fmt_check(read_uniq(o("sort.txt")))
+    db_same = same("tt-docs.tsv", "tt-db.tsv")
+    db_bytes = sum(os.path.getsize(o("index.db") + ext) for ext in ("", "-wal")
+                   if os.path.exists(o("index.db") + ext))
+    words_m = sum(int(r[1]) for r in
+                  (ln.split("\t") for ln in open(o("tt-tone.tsv"), encoding="utf-8"))
+                  if r[1].isdigit()) / 1e6 if os.path.exists(o("tt-tone.tsv")) else 0
+    checks["tt-index"] = f"database {db_bytes / 1e6:.1f} MB" + \
+        (f" = {db_bytes / 1e6 / words_m:.2f} MB per million words" if words_m else "")
+    checks["tt-db"] = "output identical to reading the files" if db_same else \
+        "OUTPUT DIFFERS FROM READING THE FILES"
     tone_rows = [ln.rstrip("\n").split("\t") for ln in open(o("tt-tone.tsv"), encoding="utf-8")]
     checks["tt-tone"] = (f"{sum(int(r[1]) for r in tone_rows[1:]):,} words in "
                          f"{len(tone_rows) - 1:,} rows")
@@ -553,6 +569,13 @@ def main():
     target("tone adds ≤ 15% to count (a row per document against a table per document)",
            ratio_str(r_tone), r_tone <= 1.15,
            f"against count --total-only: {ratio_str(res['tt-tone']['wall'] / main_w)}")
+    r_ix = res["tt-index"]["wall"] / res["tt-docs"]["wall"]
+    target("index costs ≤ 1.5× counting the same files (a table per document)", ratio_str(r_ix),
+           r_ix <= 1.5, checks["tt-index"])
+    r_db = res["tt-docs"]["wall"] / res["tt-db"]["wall"]
+    target("count --db is faster than reading the files, identical output", ratio_str(r_db),
+           r_db > 1 and db_same, f"{ndocs / res['tt-index']['wall'] * 3600:,.0f} documents "
+           "per hour indexed on one thread")
     r_gz = res["tt-gz"]["wall"] / main_w
     target("gzip input ≤ 1.5× the time of plain input", ratio_str(r_gz), r_gz <= 1.5 and gz_same)
     if len(scaling) >= 3:
