@@ -16,6 +16,7 @@
 #include <libxml/parser.h>
 
 #include "termtide/batch.h"
+#include "termtide/index.h"
 #include "tt_internal.h"
 
 typedef enum { EV_DOC, EV_PROBLEM } event_kind;
@@ -381,6 +382,8 @@ static uint64_t total_bytes(const tt_source_list *inputs)
 tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt,
                        tt_batch_summary *sum, tt_error *err)
 {
+    if (opt->index)
+        return tt_index_replay(opt->index, inputs, opt, sum, err);
     memset(sum, 0, sizeof *sum);
     sum->inputs = inputs->n;
     xmlInitParser(); /* once, before any thread parses */

@@ -165,6 +165,24 @@ static void test_same_as_files(void **state)
         if (!same_file("files.out", "db.out") || !same_notes("files.err", "db.err"))
             fail_msg("count %s: the index gives other output than the files", views[i]);
     }
+    /* the other reading commands through the same pipeline option */
+    static const char *const others[] = {
+        "compare --base demo-corpus/hollowmere/2024-Q2-call-transcript.txt --target "
+        "demo-corpus/hollowmere/2025-Q4-call-transcript.txt",
+        "compare --manifest demo-corpus/manifest.tsv --kinds call-transcript --consecutive",
+        "trend --manifest demo-corpus/manifest.tsv --kinds call-transcript --entity hollowmere",
+        "describe --term covenant demo-corpus/hollowmere",
+    };
+    for (size_t i = 0; i < sizeof others / sizeof *others; i++) {
+        snprintf(args, sizeof args, "%s", others[i]);
+        int a = tt(args, "files");
+        snprintf(args, sizeof args, "%s --db %s/demo.db", others[i], tmpdir);
+        int b = tt(args, "db");
+        assert_int_equal(a, 0);
+        assert_int_equal(b, 0);
+        if (!same_file("files.out", "db.out") || !same_notes("files.err", "db.err"))
+            fail_msg("%s: the index gives other output than the files", others[i]);
+    }
     /* indexed under absolute paths, asked with relative ones: the same file,
      * and the names as the query spells them */
     char cwd[512];

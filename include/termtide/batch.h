@@ -30,6 +30,8 @@ typedef struct tt_doc_result {
     size_t prepared_len;
 } tt_doc_result;
 
+struct tt_index;
+
 typedef struct tt_batch_options {
     tt_read_options read;
     tt_count_options count;
@@ -72,6 +74,10 @@ typedef struct tt_batch_options {
     void (*worker_free)(void *ctx, void *state);
     tt_status (*analyse)(void *ctx, void *state, const tt_document *doc, tt_buf *out,
                          tt_doc_stats *stats);
+    /* Optional: an open index (index.h) to replay the inputs from instead
+     * of reading them; the callbacks see what reading would give (see
+     * tt_index_replay). Not with `analyse`. */
+    struct tt_index *index;
 } tt_batch_options;
 
 void tt_batch_options_init(tt_batch_options *o);

@@ -8,6 +8,7 @@
 
 #include "termtide/alloc.h"
 #include "termtide/filter.h"
+#include "termtide/index.h"
 #include "termtide/sha256.h"
 #include "cli.h"
 
@@ -85,6 +86,8 @@ void cli_pipeline_init(cli_pipeline *p)
 
 void cli_pipeline_release(cli_pipeline *p)
 {
+    tt_index_close(p->index);
+    p->index = NULL;
     tt_termtable_free(p->stopwords);
     free(p->extra_lists);
     p->stopwords = NULL;
@@ -145,6 +148,7 @@ int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg)
         p->batch.threads = (int)v;
         return 1;
     case 'q': p->quiet = 1; return 1;
+    case CLI_OPT_DB: p->db = arg; return 1;
     }
     return 0;
 }
@@ -178,6 +182,21 @@ int cli_pipeline_finish(cli_pipeline *p)
     }
     p->batch.count.stopwords = tt_termtable_distinct(p->stopwords) ? p->stopwords : NULL;
     p->progress = !p->quiet && isatty(2);
+    if (p->db) {
+        tt_buf profile;
+        tt_buf_init(&profile, 0);
+        int ok = cli_pipeline_profile(p, &profile);
+        if (ok && (tt_index_open(p->db, TT_INDEX_READ, &p->index, &err) ||
+                   tt_index_profile(p->index, profile.data, &err))) {
+            char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+            cli_error("%s", tt_error_format(&err, msg, sizeof msg));
+            ok = 0;
+        }
+        tt_buf_release(&profile);
+        if (!ok)
+            return 0;
+        p->batch.index = p->index;
+    }
     return 1;
 }
 

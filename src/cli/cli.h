@@ -65,6 +65,8 @@ typedef struct cli_pipeline {
     const char **extra_lists;
     size_t n_extra;
     int quiet;
+    const char *db;   /* --db: the index to read instead of the files */
+    struct tt_index *index;
     int progress;     /* stderr is a terminal and not quiet */
     double started;   /* monotonic seconds */
     double last_progress;
@@ -75,7 +77,7 @@ typedef struct cli_pipeline {
 enum {
     CLI_OPT_NGRAM = 1000, CLI_OPT_STEM, CLI_OPT_NUMBERS, CLI_OPT_MIN_LENGTH,
     CLI_OPT_STOPWORDS, CLI_OPT_NO_STOPWORDS, CLI_OPT_TABLES, CLI_OPT_DOC_TYPES,
-    CLI_OPT_QUIET, CLI_OPT_FIRST_FREE
+    CLI_OPT_QUIET, CLI_OPT_DB, CLI_OPT_FIRST_FREE
 };
 
 #define CLI_PIPELINE_LONGOPTS                                           \
@@ -88,6 +90,7 @@ enum {
     { "tables", required_argument, NULL, CLI_OPT_TABLES },              \
     { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },        \
     { "jobs", required_argument, NULL, 'j' },                           \
+    { "db", required_argument, NULL, CLI_OPT_DB },                      \
     { "quiet", no_argument, NULL, 'q' }
 
 #define CLI_PIPELINE_HELP                                                          \
@@ -108,6 +111,9 @@ enum {
     "                        default keeps the main documents and skips exhibits\n"     \
     "                        (EX-*), graphics, archives and XML; uuencoded parts are\n" \
     "                        always skipped\n"                                          \
+    "  --db DB               read the documents from the index DB (termtide index)\n"   \
+    "                        instead of the files; the output is the same; the\n"   \
+    "                        counting options must be those the index was built with\n" \
     "  -q, --quiet           no progress and no closing summary on stderr\n"
 
 void cli_pipeline_init(cli_pipeline *p);
@@ -115,7 +121,8 @@ void cli_pipeline_release(cli_pipeline *p);
 /* Handles one getopt result if it is a pipeline option: returns 1 when
  * handled, 0 when not a pipeline option, -1 on a bad value (message printed). */
 int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg);
-/* Loads the stop-word lists; prints errors; returns 0 on failure. */
+/* Loads the stop-word lists and opens the --db index (checking that it was
+ * built with these counting options); prints errors; returns 0 on failure. */
 int cli_pipeline_finish(cli_pipeline *p);
 /* Expands the paths (or "-" when none); returns 0 on out-of-memory. */
 int cli_expand_inputs(tt_source_list *list, int argc, char **argv);

@@ -38,10 +38,7 @@ const char tt_help_count[] =
     "                        run as a formula are prefixed with ') or JSON Lines\n"
     "  -o, --output FILE     write to FILE atomically (default standard output)\n"
     "  --no-header           leave out the header line (TSV, CSV)\n"
-    "  --db DB               read the documents from the index DB (see termtide index)\n"
-    "                        instead of the files: PATH names which indexed files (all\n"
-    "                        when none is given); the output is the same as reading\n"
-    "                        them; the counting options must be those of the index\n"
+    "  (with --db DB and no PATH: every file in the index, in path order)\n"
     "\n"
     CLI_PIPELINE_HELP
     "\n"
@@ -266,7 +263,7 @@ static tt_status on_document(void *ctx, const tt_doc_result *r)
 }
 
 enum { OPT_SHOW = CLI_OPT_FIRST_FREE, OPT_TOP, OPT_MIN_COUNT, OPT_PER, OPT_TOTAL,
-       OPT_TOTAL_ONLY, OPT_NO_HEADER, OPT_HELP, OPT_DB };
+       OPT_TOTAL_ONLY, OPT_NO_HEADER, OPT_HELP };
 
 static const struct option longopts[] = {
     { "show", required_argument, NULL, OPT_SHOW },
@@ -278,7 +275,6 @@ static const struct option longopts[] = {
     { "format", required_argument, NULL, 'f' },
     { "output", required_argument, NULL, 'o' },
     { "no-header", no_argument, NULL, OPT_NO_HEADER },
-    { "db", required_argument, NULL, OPT_DB },
     { "help", no_argument, NULL, 'h' },
     CLI_PIPELINE_LONGOPTS,
     { NULL, 0, NULL, 0 }
@@ -291,10 +287,7 @@ int tt_cmd_count(int argc, char **argv)
     cli_pipeline_init(&c.pipe);
     c.header = 1;
     c.format = TT_FORMAT_TSV;
-    const char *output = NULL, *db = NULL;
-    tt_index *ix = NULL;
-    tt_buf profile;
-    tt_buf_init(&profile, 0);
+    const char *output = NULL;
     int opt, rc = TT_EXIT_TROUBLE;
     uint64_t v;
     tt_source_list inputs;
@@ -337,7 +330,6 @@ int tt_cmd_count(int argc, char **argv)
                 goto out;
             break;
         case 'o': output = optarg; break;
-        case OPT_DB: db = optarg; break;
         case 'h': fputs(tt_help_count, stdout); rc = TT_EXIT_OK; goto out;
         default:
             fprintf(stderr, "Try 'termtide help count'.\n");
@@ -350,20 +342,18 @@ int tt_cmd_count(int argc, char **argv)
     }
     if (!cli_pipeline_finish(&c.pipe))
         goto out;
-    if (db) {
+    if (c.pipe.index && optind == argc) {
+        /* every indexed file */
         tt_error e;
         tt_error_init(&e);
-        char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-        if (!cli_pipeline_profile(&c.pipe, &profile))
-            goto out;
-        if (tt_index_open(db, TT_INDEX_READ, &ix, &e) || tt_index_profile(ix, profile.data, &e) ||
-            (optind == argc && tt_index_paths(ix, &inputs, &e))) {
+        if (tt_index_paths(c.pipe.index, &inputs, &e)) {
+            char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
             cli_error("%s", tt_error_format(&e, msg, sizeof msg));
             goto out;
         }
-    }
-    if ((!db || optind < argc) && !cli_expand_inputs(&inputs, argc - optind, argv + optind))
+    } else if (!cli_expand_inputs(&inputs, argc - optind, argv + optind)) {
         goto out;
+    }
     if (c.total && !(c.all = tt_termtable_new())) {
         cli_error("out of memory");
         goto out;
@@ -383,8 +373,7 @@ int tt_cmd_count(int argc, char **argv)
     tt_batch_summary sum;
     tt_error err;
     tt_error_init(&err);
-    tt_status st = ix ? tt_index_replay(ix, &inputs, &c.pipe.batch, &sum, &err)
-                      : tt_batch_run(&inputs, &c.pipe.batch, &sum, &err);
+    tt_status st = tt_batch_run(&inputs, &c.pipe.batch, &sum, &err);
     if (!st && c.all) {
         st = header_once(&c);
         if (!st) {
@@ -411,8 +400,6 @@ int tt_cmd_count(int argc, char **argv)
     cli_pipeline_summary(&c.pipe, "count", &sum);
     rc = sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
 out:
-    tt_index_close(ix);
-    tt_buf_release(&profile);
     tt_termtable_free(c.all);
     tt_buf_release(&c.buf);
     tt_source_list_release(&inputs);

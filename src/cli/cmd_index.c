@@ -132,6 +132,10 @@ int tt_cmd_index(int argc, char **argv)
         cli_error("expected the index file and at least one path (termtide index DB PATH...)");
         goto out;
     }
+    if (c.pipe.db) {
+        cli_error("--db reads an index; to write one, name it first: termtide index DB PATH...");
+        goto out;
+    }
     const char *db = argv[optind++];
     if (!cli_pipeline_finish(&c.pipe) || !cli_pipeline_profile(&c.pipe, &profile))
         goto out;
