@@ -64,6 +64,7 @@ static const char *const schema =
     "CREATE TABLE files(id INTEGER PRIMARY KEY, path TEXT NOT NULL UNIQUE,"
     " sha256 TEXT NOT NULL, size INTEGER NOT NULL, parts_skipped INTEGER NOT NULL,"
     " indexed_at TEXT NOT NULL);"
+    "CREATE INDEX files_sha256 ON files(sha256);"
     "CREATE TABLE documents(id INTEGER PRIMARY KEY,"
     " file INTEGER NOT NULL REFERENCES files(id) ON DELETE CASCADE, ord INTEGER NOT NULL,"
     " seq INTEGER NOT NULL, name TEXT NOT NULL, name_rel INTEGER NOT NULL,"
@@ -473,6 +474,15 @@ static char *canonical(const char *path)
     c[a] = '/';
     memcpy(c + a + 1, path, b + 1);
     return c;
+}
+
+/* Forgets the spelled path of the last file (a merged file has none);
+ * returns the old one for the caller to free. */
+static char *ix_spelled_reset(tt_index *ix)
+{
+    char *old = ix->spelled;
+    ix->spelled = NULL;
+    return old;
 }
 
 tt_status tt_index_file_begin(tt_index *ix, const char *path, const char *sha256, uint64_t size,
@@ -1006,5 +1016,211 @@ tt_status tt_index_paths(tt_index *ix, tt_source_list *list, tt_error *err)
     if (!st && rc != SQLITE_DONE)
         st = db_error(ix, err, "reading the index");
     sqlite3_finalize(q);
+    return st;
+}
+
+
+/* Merging: every file of a shard that the output does not hold (by
+ * SHA-256) is copied with its documents and problems in one transaction;
+ * term ids are the shard's own, so each document's blob is decoded,
+ * mapped to the output's ids (new terms join its dictionary) and encoded
+ * again in id order. */
+static tt_status copy_blob(tt_index *out, tt_index *shard, const unsigned char *p, size_t n,
+                           tt_error *err)
+{
+    const unsigned char *end = p + n;
+    size_t cap = n / 2 + 1, m = 0;
+    pair *pairs = tt_calloc(cap, sizeof *pairs);
+    if (!pairs)
+        return tt_error_set(err, TT_ENOMEM, out->path, -1, "out of memory");
+    uint64_t id = 0;
+    tt_status st = TT_OK;
+    while (p < end && !st) {
+        uint64_t delta, count, nid;
+        if (!get_varint(&p, end, &delta) || !get_varint(&p, end, &count) || delta == 0 ||
+            id + delta > shard->n_terms || m == cap) {
+            st = tt_error_set(err, TT_EPARSE, shard->path, -1, "damaged index: a term table");
+            break;
+        }
+        id += delta;
+        const char *term = shard->term_of[id - 1];
+        if ((st = term_id(out, term, strlen(term), &nid, err)) != TT_OK)
+            break;
+        pairs[m++] = (pair){ nid, count };
+    }
+    tt_buf_reset(&out->blob);
+    if (!st) {
+        qsort(pairs, m, sizeof *pairs, cmp_pair);
+        uint64_t prev = 0;
+        for (size_t i = 0; i < m && !st; i++) {
+            st = put_varint(&out->blob, pairs[i].id - prev);
+            if (!st) st = put_varint(&out->blob, pairs[i].count);
+            prev = pairs[i].id;
+        }
+        if (st)
+            tt_error_set(err, st, out->path, -1, "out of memory");
+    }
+    tt_free(pairs);
+    return st;
+}
+
+/* Copies the rows of `table` for one shard file into the output, all
+ * columns but id and file, with the terms blob (when `blob_col` >= 0)
+ * remapped. */
+static tt_status copy_rows(tt_index *out, tt_index *shard, const char *table, const char *cols,
+                           int ncols, int blob_col, long long shard_file, tt_error *err)
+{
+    char sql[1024];
+    sqlite3_stmt *sel = NULL, *ins = NULL;
+    snprintf(sql, sizeof sql, "SELECT %s FROM %s WHERE file = ? ORDER BY ord", cols, table);
+    tt_status st = prepare(shard, sql, &sel, err);
+    if (st)
+        return st;
+    char marks[256] = "?";
+    size_t ml = 1;
+    for (int i = 1; i < ncols + 1 && ml + 4 < sizeof marks; i++) {
+        memcpy(marks + ml, ", ?", 4);
+        ml += 3;
+    }
+    snprintf(sql, sizeof sql, "INSERT INTO %s(file, %s) VALUES(%s)", table, cols, marks);
+    if ((st = prepare(out, sql, &ins, err))) {
+        sqlite3_finalize(sel);
+        return st;
+    }
+    sqlite3_bind_int64(sel, 1, shard_file);
+    int rc;
+    while (!st && (rc = sqlite3_step(sel)) == SQLITE_ROW) {
+        sqlite3_reset(ins);
+        sqlite3_bind_int64(ins, 1, out->file_id);
+        for (int c = 0; c < ncols && !st; c++) {
+            if (c == blob_col) {
+                st = copy_blob(out, shard, sqlite3_column_blob(sel, c),
+                               (size_t)sqlite3_column_bytes(sel, c), err);
+                sqlite3_bind_blob(ins, c + 2, out->blob.len ? out->blob.data : "",
+                                  (int)out->blob.len, SQLITE_TRANSIENT);
+            } else {
+                sqlite3_bind_value(ins, c + 2, sqlite3_column_value(sel, c));
+            }
+        }
+        if (!st && sqlite3_step(ins) != SQLITE_DONE)
+            st = db_error(out, err, "writing the index");
+    }
+    if (!st && rc != SQLITE_DONE)
+        st = db_error(shard, err, "reading the shard");
+    sqlite3_finalize(sel);
+    sqlite3_finalize(ins);
+    return st;
+}
+
+tt_status tt_index_merge(tt_index *out, const char *shard_path, tt_index_merge_stats *ms,
+                         tt_index_overlap_fn on_overlap, void *ctx, tt_error *err)
+{
+    tt_index *shard = NULL;
+    tt_status st = tt_index_open(shard_path, TT_INDEX_READ, &shard, err);
+    if (st)
+        return st;
+    tt_buf profile;
+    tt_buf_init(&profile, 0);
+    sqlite3_stmt *files = NULL, *dup = NULL;
+    if ((st = meta_get(shard, "profile", &profile, err)))
+        goto done;
+    if (profile.len == 0)
+        goto done; /* an empty shard adds nothing */
+    if ((st = tt_index_profile(out, profile.data, err))) {
+        /* name the shard, not the output, as the one that differs */
+        char why[TT_ERROR_MSG_MAX];
+        tti_strlcpy(why, err->message, sizeof why);
+        st = tt_error_set(err, st, shard_path, -1, "cannot be merged into %s: %s", out->path,
+                          why);
+        goto done;
+    }
+    if ((st = load_dictionary(shard, err)) || (st = load_dictionary(out, err)) ||
+        (st = prepare(shard, "SELECT id, path, sha256, size, parts_skipped, indexed_at FROM "
+                             "files ORDER BY path", &files, err)) ||
+        (st = prepare(out, "SELECT path FROM files WHERE sha256 = ? AND path <> ? LIMIT 1", &dup,
+                      err)))
+        goto done;
+    int rc;
+    while (!st && (rc = sqlite3_step(files)) == SQLITE_ROW) {
+        const char *path = col_text(files, 1), *sha = col_text(files, 2);
+        sqlite3_reset(dup);
+        sqlite3_bind_text(dup, 1, sha, -1, SQLITE_TRANSIENT);
+        sqlite3_bind_text(dup, 2, path, -1, SQLITE_TRANSIENT);
+        int drc = sqlite3_step(dup);
+        if (drc == SQLITE_ROW) {
+            ms->overlaps++;
+            if (on_overlap)
+                on_overlap(ctx, shard_path, path, col_text(dup, 0));
+            continue;
+        }
+        tt_index_file same;
+        /* the same path with the same bytes: already merged */
+        char *key = tt_strdup(path);
+        if (!key) {
+            st = tt_error_set(err, TT_ENOMEM, out->path, -1, "out of memory");
+            break;
+        }
+        sqlite3_stmt *q = NULL;
+        memset(&same, 0, sizeof same);
+        if (!(st = prepare(out, "SELECT sha256 FROM files WHERE path = ?", &q, err))) {
+            sqlite3_bind_text(q, 1, key, -1, SQLITE_STATIC);
+            if (sqlite3_step(q) == SQLITE_ROW && !strcmp(col_text(q, 0), sha))
+                same.found = 1;
+            sqlite3_finalize(q);
+        }
+        if (!st && same.found) {
+            ms->overlaps++;
+            if (on_overlap)
+                on_overlap(ctx, shard_path, path, path);
+            tt_free(key);
+            continue;
+        }
+        tt_free(ix_spelled_reset(out));
+        if (!st)
+            st = file_begin(out, key, sha, (uint64_t)sqlite3_column_int64(files, 3), err);
+        tt_free(key);
+        if (st)
+            break;
+        long long sid = sqlite3_column_int64(files, 0);
+        st = copy_rows(out, shard, "documents",
+                       "ord, seq, name, name_rel, kind, outer_kind, encoding, type, entity, "
+                       "period, form, notes, bytes, words_read, numbers, stopwords, "
+                       "short_words, terms_kept, overlong, sentences, distinct_terms, terms",
+                       22, 21, sid, err);
+        if (!st)
+            st = copy_rows(out, shard, "problems",
+                           "ord, name, name_rel, status, line, offset, message, skipped", 8, -1,
+                           sid, err);
+        sqlite3_stmt *u = NULL;
+        if (!st && !(st = prepare(out, "UPDATE files SET indexed_at = ? WHERE id = ?", &u,
+                                  err))) {
+            sqlite3_bind_value(u, 1, sqlite3_column_value(files, 5));
+            sqlite3_bind_int64(u, 2, out->file_id);
+            if (sqlite3_step(u) != SQLITE_DONE)
+                st = db_error(out, err, "writing the index");
+            sqlite3_finalize(u);
+        }
+        if (!st)
+            st = tt_index_file_commit(out, (size_t)sqlite3_column_int64(files, 4), err);
+        else
+            tt_index_file_abort(out);
+        if (!st) {
+            ms->files++;
+            sqlite3_stmt *c = NULL;
+            if (!prepare(out, "SELECT count(*) FROM documents WHERE file = ?", &c, err)) {
+                sqlite3_bind_int64(c, 1, out->file_id);
+                if (sqlite3_step(c) == SQLITE_ROW)
+                    ms->documents += (size_t)sqlite3_column_int64(c, 0);
+                sqlite3_finalize(c);
+            }
+        }
+    }
+    if (!st && rc != SQLITE_DONE)
+        st = db_error(shard, err, "reading the shard");
+done:
+    sqlite3_finalize(files);
+    sqlite3_finalize(dup);
+    tt_buf_release(&profile);
+    tt_index_close(shard);
     return st;
 }

@@ -454,6 +454,71 @@ static void test_readonly_dir(void **state)
     free(err);
 }
 
+/* Shards merged equal one run over all the files: the demo corpus split by
+ * company and a generated archive split three ways, in every count view;
+ * a file in two shards is reported and counted once; a shard with other
+ * counting options is refused by name and the rest still merged. */
+static void test_merge(void **state)
+{
+    (void)state;
+    char cmd[4096], args[4096], p[512];
+    size_t n;
+    snprintf(cmd, sizeof cmd, "%s bench/gen_corpus.py --seed 11 --doc-mb 0.01 --docs 30 "
+             "%s/archive > /dev/null", tt_test_python(), tmpdir);
+    assert_int_equal(system(cmd), 0);
+    snprintf(cmd, sizeof cmd, "cd %s/archive && mkdir a b c && i=0; for f in *.txt; do "
+             "mv $f $(echo a b c | cut -d' ' -f$((i %% 3 + 1)))/; i=$((i+1)); done", tmpdir);
+    assert_int_equal(system(cmd), 0);
+    snprintf(args, sizeof args, "index -q %s/all.db demo-corpus/hollowmere demo-corpus/ambleworth "
+             "%s/archive", tmpdir, tmpdir);
+    assert_int_equal(tt(args, "all"), 0);
+    static const char *const shards[] = { "demo-corpus/hollowmere", "demo-corpus/ambleworth",
+                                          "archive/a", "archive/b", "archive/c" };
+    for (size_t i = 0; i < 5; i++) {
+        if (!strncmp(shards[i], "archive", 7))
+            snprintf(args, sizeof args, "index -q %s/shard%zu.db %s/%s", tmpdir, i, tmpdir,
+                     shards[i]);
+        else
+            snprintf(args, sizeof args, "index -q %s/shard%zu.db %s", tmpdir, i, shards[i]);
+        assert_int_equal(tt(args, "shard"), 0);
+    }
+    /* shard 1 again: every file an overlap */
+    snprintf(args, sizeof args, "merge %s/merged.db %s/shard3.db %s/shard0.db %s/shard4.db "
+             "%s/shard1.db %s/shard2.db %s/shard1.db", tmpdir, tmpdir, tmpdir, tmpdir, tmpdir,
+             tmpdir, tmpdir);
+    assert_int_equal(tt(args, "merge"), 0);
+    snprintf(p, sizeof p, "%s/merge.err", tmpdir);
+    char *err = slurp(p, &n);
+    assert_non_null(strstr(err, "already merged (same bytes); counted once"));
+    assert_non_null(strstr(err, "19 overlaps counted once"));
+    free(err);
+    static const char *const views[] = { "", "--show summary", "--show classes --total",
+                                         "--total-only" };
+    for (size_t i = 0; i < sizeof views / sizeof *views; i++) {
+        snprintf(args, sizeof args, "count %s --db %s/all.db demo-corpus/hollowmere "
+                 "demo-corpus/ambleworth %s/archive", views[i], tmpdir, tmpdir);
+        assert_int_equal(tt(args, "files"), 0);
+        snprintf(args, sizeof args, "count %s --db %s/merged.db", views[i], tmpdir);
+        assert_int_equal(tt(args, "db"), 0);
+        snprintf(args, sizeof args, "count %s --db %s/all.db", views[i], tmpdir);
+        assert_int_equal(tt(args, "files"), 0);
+        if (!same_file("files.out", "db.out"))
+            fail_msg("count %s: the merged index differs from one run", views[i]);
+    }
+    /* a shard with other counting options */
+    snprintf(args, sizeof args, "index -q --stem %s/stem.db demo-corpus/hollowmere", tmpdir);
+    assert_int_equal(tt(args, "stem"), 0);
+    snprintf(args, sizeof args, "merge %s/merged2.db %s/shard0.db %s/stem.db %s/shard1.db",
+             tmpdir, tmpdir, tmpdir, tmpdir);
+    assert_int_equal(tt(args, "merge2"), 2);
+    snprintf(p, sizeof p, "%s/merge2.err", tmpdir);
+    err = slurp(p, &n);
+    assert_non_null(strstr(err, "stem.db: cannot be merged into"));
+    /* the two good shards still merged: 19 files each */
+    assert_non_null(strstr(err, "3 shards, 1 skipped; 38 files and 38 documents added"));
+    free(err);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -463,6 +528,7 @@ int main(void)
         cmocka_unit_test_setup_teardown(test_not_an_index, setup, teardown),
         cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readonly_dir, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_merge, setup, teardown),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

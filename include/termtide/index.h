@@ -72,6 +72,21 @@ void tt_index_file_abort(tt_index *ix);
 tt_status tt_index_prune(tt_index *ix, const tt_source_list *keep, size_t *removed,
                          tt_error *err);
 
+/* Merging indexes built over disjoint sets of files (shards) into one
+ * (out, opened for writing): the result holds what one run over all the
+ * files would have written. A shard must have out's profile (an empty out
+ * takes the first shard's). A shard file whose bytes (SHA-256) out already
+ * holds, under any path, is an overlap: reported through on_overlap (with
+ * the path out holds it under) and counted once. Each file is copied in one
+ * transaction. */
+typedef struct tt_index_merge_stats {
+    size_t files, documents, overlaps;
+} tt_index_merge_stats;
+typedef void (*tt_index_overlap_fn)(void *ctx, const char *shard, const char *path,
+                                    const char *held_as);
+tt_status tt_index_merge(tt_index *out, const char *shard_path, tt_index_merge_stats *ms,
+                         tt_index_overlap_fn on_overlap, void *ctx, tt_error *err);
+
 /* Appends the path of every indexed file to list, in bytewise order. */
 tt_status tt_index_paths(tt_index *ix, tt_source_list *list, tt_error *err);
 

@@ -42,10 +42,14 @@ int tt_cmd_tone(int argc, char **argv);
 extern const char tt_help_tone[];
 int tt_cmd_index(int argc, char **argv);
 extern const char tt_help_index[];
+int tt_cmd_merge(int argc, char **argv);
+extern const char tt_help_merge[];
 int tt_cmd_search(int argc, char **argv);
 extern const char tt_help_search[];
 int tt_cmd_cloud(int argc, char **argv);
 extern const char tt_help_cloud[];
+int tt_cmd_chart(int argc, char **argv);
+extern const char tt_help_chart[];
 
 /* The program name for messages. */
 extern const char *tt_prog;
