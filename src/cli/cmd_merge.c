@@ -29,10 +29,18 @@ static const struct option longopts[] = {
     { NULL, 0, NULL, 0 }
 };
 
+/* Overlap notes: the first few of each shard by name, the rest counted. */
+#define OVERLAPS_NAMED 3
+
+typedef struct merge_notes {
+    int quiet;
+    size_t in_shard;
+} merge_notes;
+
 static void on_overlap(void *ctx, const char *shard, const char *path, const char *held_as)
 {
-    const int *quiet = ctx;
-    if (*quiet)
+    merge_notes *m = ctx;
+    if (m->quiet || ++m->in_shard > OVERLAPS_NAMED)
         return;
     if (!strcmp(path, held_as))
         cli_note("%s: %s is already merged (same bytes); counted once", shard, path);
@@ -43,14 +51,15 @@ static void on_overlap(void *ctx, const char *shard, const char *path, const cha
 
 int tt_cmd_merge(int argc, char **argv)
 {
-    int opt, quiet = 0, rc = TT_EXIT_TROUBLE;
+    int opt, rc = TT_EXIT_TROUBLE;
+    merge_notes notes = { 0, 0 };
     tt_index *out = NULL;
     char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
     double started = cli_now();
     optind = 1;
     while ((opt = getopt_long(argc, argv, "qh", longopts, NULL)) != -1) {
         switch (opt) {
-        case 'q': quiet = 1; break;
+        case 'q': notes.quiet = 1; break;
         case 'h': fputs(tt_help_merge, stdout); return TT_EXIT_OK;
         default: fprintf(stderr, "Try 'termtide help merge'.\n"); return TT_EXIT_TROUBLE;
         }
@@ -77,7 +86,12 @@ int tt_cmd_merge(int argc, char **argv)
             failed++;
             continue;
         }
-        if (tt_index_merge(out, argv[i], &ms, on_overlap, &quiet, &err)) {
+        notes.in_shard = 0;
+        tt_status st = tt_index_merge(out, argv[i], &ms, on_overlap, &notes, &err);
+        if (!notes.quiet && notes.in_shard > OVERLAPS_NAMED)
+            cli_note("%s: %zu more files already merged; counted once", argv[i],
+                     notes.in_shard - OVERLAPS_NAMED);
+        if (st) {
             cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
             failed++;
             if (err.status == TT_ENOMEM)
@@ -90,7 +104,7 @@ int tt_cmd_merge(int argc, char **argv)
         cli_error("%s", tt_error_format(&err, msg, sizeof msg));
         goto done;
     }
-    if (!quiet)
+    if (!notes.quiet)
         fprintf(stderr,
                 "%s merge: %d shard%s, %zu skipped; %zu files and %zu documents added, %zu "
                 "overlap%s counted once, in %.2f s; %s holds %llu files, %llu documents, %llu "
