@@ -82,25 +82,32 @@ typedef struct worker_state {
     int astate_ok;
 } worker_state;
 
-/* A worker's state: a counter, or the caller's analysis state. */
+/* Analysis in place of counting (analyse set, analyse_with_count not). */
+static int only_analyse(const tt_batch_options *opt)
+{
+    return opt->analyse && !opt->analyse_with_count;
+}
+
+/* A worker's state: a counter, the caller's analysis state, or both. */
 static void worker_state_init(worker_state *ws, const tt_batch_options *opt,
                               tt_termtable *partial)
 {
     memset(ws, 0, sizeof *ws);
     ws->reader = tt_reader_new();
+    ws->astate_ok = 1;
     if (opt->analyse) {
         ws->astate = opt->worker_new ? opt->worker_new(opt->ctx) : NULL;
         ws->astate_ok = !opt->worker_new || ws->astate;
-        return;
+        if (only_analyse(opt))
+            return;
     }
-    ws->astate_ok = 1;
     ws->counter = tt_counter_new(&opt->count);
     ws->partial = partial;
 }
 
 static int worker_state_ok(const worker_state *ws, const tt_batch_options *opt)
 {
-    return ws->reader && ws->astate_ok && (opt->analyse || ws->counter);
+    return ws->reader && ws->astate_ok && (only_analyse(opt) || ws->counter);
 }
 
 static void worker_state_release(worker_state *ws, const tt_batch_options *opt)
@@ -195,17 +202,24 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     tt_doc_stats stats;
     memset(&stats, 0, sizeof stats);
     tt_status st;
-    if (opt->analyse) {
+    int analysing = only_analyse(opt);
+    if (analysing) {
         st = opt->analyse(opt->ctx, w->astate, doc, &out, &stats);
     } else {
         table = tt_termtable_new();
         st = table ? tt_counter_count(w->counter, doc->blocks, table, &stats) : TT_ENOMEM;
+        if (!st && opt->analyse) {
+            tt_doc_stats astats;
+            memset(&astats, 0, sizeof astats);
+            analysing = 1;
+            st = opt->analyse(opt->ctx, w->astate, doc, &out, &astats);
+        }
     }
     if (st) {
         tt_error_set(&err, st, doc->name, -1, "%s while %s",
-                     st == TT_ELIMIT && !opt->analyse ? "too many distinct terms"
-                                                      : tt_status_name(st),
-                     opt->analyse ? "analysing" : "counting");
+                     st == TT_ELIMIT && !analysing ? "too many distinct terms"
+                                                   : tt_status_name(st),
+                     analysing ? "analysing" : "counting");
         add_problem(s, doc->name, &err, 1);
         tt_termtable_free(table);
         tt_buf_release(&out);
@@ -278,7 +292,7 @@ static void process_input(runner *r, worker_state *ws, size_t i, slot *s)
     struct stat sb;
     if (strcmp(in->path, "-") != 0 && stat(in->path, &sb) == 0)
         s->bytes = (uint64_t)sb.st_size;
-    if (!worker_state_ok(ws, r->opt) || (r->opt->total && !r->opt->analyse && !ws->partial)) {
+    if (!worker_state_ok(ws, r->opt) || (r->opt->total && !only_analyse(r->opt) && !ws->partial)) {
         tt_error_set(&err, TT_ENOMEM, in->path, -1, "out of memory");
         add_problem(s, in->path, &err, 1);
         return;
@@ -302,7 +316,7 @@ static void *worker_main(void *arg)
     runner *r = arg;
     worker_state ws;
     worker_state_init(&ws, r->opt,
-                      r->opt->total && !r->opt->analyse ? tt_termtable_new() : NULL);
+                      r->opt->total && !only_analyse(r->opt) ? tt_termtable_new() : NULL);
     pthread_mutex_lock(&r->lock);
     for (;;) {
         while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)
@@ -404,7 +418,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     if (threads == 1) {
         /* One thread: documents are added straight to the caller's total. */
         worker_state ws;
-        worker_state_init(&ws, opt, opt->analyse ? NULL : opt->total);
+        worker_state_init(&ws, opt, only_analyse(opt) ? NULL : opt->total);
         if (!worker_state_ok(&ws, opt)) {
             worker_state_release(&ws, opt);
             tt_free(r.slots);

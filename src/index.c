@@ -6,7 +6,7 @@
  *   documents(id, file, ord, seq, name, name_rel, kind, outer_kind, encoding, type,
  *             entity, period, form, notes, bytes, words_read, numbers,
  *             stopwords, short_words, terms_kept, overlong, sentences,
- *             distinct_terms, terms BLOB)
+ *             distinct_terms, terms BLOB, analysis BLOB)
  *   problems(id, file, ord, name, name_rel, status, line, offset, message, skipped)
  *   terms(id, term)             the dictionary: every term once
  * A document's table is one BLOB: its (term id, count) pairs sorted by id,
@@ -20,6 +20,10 @@
  * spelling of it finds it; a name that starts with the path as the run
  * spelled it is kept without it (name_rel = 1) and a replay puts back the
  * path as the query spells it, so output matches reading the files.
+ *
+ * `analysis` holds what an analysis made of the document at indexing time
+ * (tone scores, packed by the caller), described by meta.analysis; a
+ * replay for that analysis hands it back as the analysis output.
  *
  * Writes: one transaction per file, begun with BEGIN IMMEDIATE; new terms
  * go into the dictionary inside the same transaction, so a rollback also
@@ -51,6 +55,7 @@ struct tt_index {
     size_t n_terms, cap_terms, committed_terms;
     tt_termtable *id_of;     /* term -> id (the table's count) */
     int dict_loaded;
+    int analysing;           /* documents carry an analysis (tt_index_analysis) */
     /* the file being written */
     char *spelled;           /* its path as the run spells it */
     long long file_id;
@@ -74,7 +79,7 @@ static const char *const schema =
     " bytes INTEGER NOT NULL, words_read INTEGER NOT NULL, numbers INTEGER NOT NULL,"
     " stopwords INTEGER NOT NULL, short_words INTEGER NOT NULL, terms_kept INTEGER NOT NULL,"
     " overlong INTEGER NOT NULL, sentences INTEGER NOT NULL, distinct_terms INTEGER NOT NULL,"
-    " terms BLOB NOT NULL);"
+    " terms BLOB NOT NULL, analysis BLOB);"
     "CREATE INDEX documents_file ON documents(file, ord);"
     "CREATE TABLE problems(id INTEGER PRIMARY KEY,"
     " file INTEGER NOT NULL REFERENCES files(id) ON DELETE CASCADE, ord INTEGER NOT NULL,"
@@ -341,6 +346,37 @@ tt_status tt_index_profile(tt_index *ix, const char *profile, tt_error *err)
 }
 
 static char *canonical(const char *path);
+
+tt_status tt_index_analysis(tt_index *ix, const char *analysis, tt_error *err)
+{
+    tt_buf have;
+    tt_buf_init(&have, 0);
+    tt_status st = meta_get(ix, "analysis", &have, err);
+    const char *want = analysis ? analysis : "";
+    if (!st && strcmp(have.data ? have.data : "", want)) {
+        tt_index_stats is;
+        if (ix->writer && have.len == 0 && !(st = tt_index_stats_get(ix, &is, err)) &&
+            is.files == 0) {
+            st = meta_set(ix, "analysis", want, err);
+        } else if (!st && !have.len) {
+            st = tt_error_set(err, TT_EINVAL, ix->path, -1,
+                              "the index holds no analysis; this run asks for \"%s\" (build a "
+                              "new index with it)", want);
+        } else if (!st && !want[0]) {
+            st = tt_error_set(err, TT_EINVAL, ix->path, -1,
+                              "the index holds the analysis \"%s\"; give the same options "
+                              "(index --tone, the same --lexicon) to keep it", have.data);
+        } else if (!st) {
+            st = tt_error_set(err, TT_EINVAL, ix->path, -1,
+                              "the index holds the analysis \"%s\"; this run asks for \"%s\"",
+                              have.data, want);
+        }
+    }
+    if (!st)
+        ix->analysing = want[0] != '\0';
+    tt_buf_release(&have);
+    return st;
+}
 
 tt_status tt_index_file_lookup(tt_index *ix, const char *path, tt_index_file *out,
                                tt_error *err)
@@ -630,8 +666,9 @@ tt_status tt_index_file_add_document(tt_index *ix, const tt_doc_result *r, tt_er
         (st = prepare(ix, "INSERT INTO documents(file, ord, seq, name, name_rel, kind, "
                           "outer_kind, encoding, type, entity, period, form, notes, bytes, "
                           "words_read, numbers, stopwords, short_words, terms_kept, overlong, "
-                          "sentences, distinct_terms, terms) VALUES(?, ?, ?, ?, ?, ?, ?, ?, ?, "
-                          "?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)", &ix->ins_doc, err)))
+                          "sentences, distinct_terms, terms, analysis) VALUES(?, ?, ?, ?, ?, ?, "
+                          "?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)", &ix->ins_doc,
+                      err)))
         return st;
     sqlite3_stmt *q = ix->ins_doc;
     sqlite3_reset(q);
@@ -665,6 +702,11 @@ tt_status tt_index_file_add_document(tt_index *ix, const tt_doc_result *r, tt_er
     sqlite3_bind_int64(q, k++, (sqlite3_int64)distinct);
     sqlite3_bind_blob(q, k++, ix->blob.len ? ix->blob.data : "", (int)ix->blob.len,
                       SQLITE_STATIC);
+    if (ix->analysing)
+        sqlite3_bind_blob(q, k++, r->prepared_len ? r->prepared : "", (int)r->prepared_len,
+                          SQLITE_STATIC);
+    else
+        sqlite3_bind_null(q, k++);
     if (sqlite3_step(q) != SQLITE_DONE)
         return db_error(ix, err, "writing the index");
     return TT_OK;
@@ -903,8 +945,25 @@ static tt_status replay_file(tt_index *ix, size_t input, const char *path, long 
             r.table = NULL;
         }
         tt_buf_reset(prepared);
-        if (opt->prepare && (st = opt->prepare(opt->ctx, &r, prepared)) != TT_OK)
+        if (opt->analyse) {
+            /* the analysis made at indexing time stands for analyse's output */
+            if (sqlite3_column_type(docs, 22) == SQLITE_NULL) {
+                tt_error e;
+                tt_error_init(&e);
+                tt_error_set(&e, TT_EINVAL, r.name, -1, "not analysed in the index %s",
+                             ix->path);
+                sum->skipped++;
+                if (opt->on_problem)
+                    opt->on_problem(opt->ctx, r.name, &e, 1);
+                drc = sqlite3_step(docs);
+                continue;
+            }
+            if ((st = tt_buf_append(prepared, sqlite3_column_blob(docs, 22),
+                                    (size_t)sqlite3_column_bytes(docs, 22))))
+                return tt_error_set(err, st, ix->path, -1, "out of memory");
+        } else if (opt->prepare && (st = opt->prepare(opt->ctx, &r, prepared)) != TT_OK) {
             return tt_error_set(err, st, r.name, -1, "stopped: %s", tt_status_name(st));
+        }
         r.prepared = prepared->data;
         r.prepared_len = prepared->len;
         sum->documents++;
@@ -924,9 +983,9 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
 {
     memset(sum, 0, sizeof *sum);
     sum->inputs = inputs->n;
-    if (opt->analyse)
+    if (opt->analyse && !ix->analysing)
         return tt_error_set(err, TT_EINVAL, ix->path, -1,
-                            "this command cannot read from an index");
+                            "this analysis cannot read from an index (it needs the text)");
     tt_status st = load_dictionary(ix, err);
     if (st)
         return st;
@@ -946,7 +1005,8 @@ tt_status tt_index_replay(tt_index *ix, const tt_source_list *inputs, const tt_b
         (st = prepare(ix, "SELECT ord, name, kind, outer_kind, encoding, type, entity, "
                           "period, form, notes, bytes, words_read, numbers, stopwords, "
                           "short_words, terms_kept, overlong, sentences, distinct_terms, seq, "
-                          "name_rel, terms FROM documents WHERE file = ? ORDER BY ord", &docs,
+                          "name_rel, terms, analysis FROM documents WHERE file = ? ORDER BY ord",
+                      &docs,
                       err)) ||
         (st = prepare(ix, "SELECT ord, name, status, line, offset, message, skipped, name_rel "
                           "FROM problems WHERE file = ? ORDER BY ord", &probs, err)))
@@ -1134,6 +1194,15 @@ tt_status tt_index_merge(tt_index *out, const char *shard_path, tt_index_merge_s
                           why);
         goto done;
     }
+    if ((st = meta_get(shard, "analysis", &profile, err)))
+        goto done;
+    if ((st = tt_index_analysis(out, profile.data, err))) {
+        char why[TT_ERROR_MSG_MAX];
+        tti_strlcpy(why, err->message, sizeof why);
+        st = tt_error_set(err, st, shard_path, -1, "cannot be merged into %s: %s", out->path,
+                          why);
+        goto done;
+    }
     if ((st = load_dictionary(shard, err)) || (st = load_dictionary(out, err)) ||
         (st = prepare(shard, "SELECT id, path, sha256, size, parts_skipped, indexed_at FROM "
                              "files ORDER BY path", &files, err)) ||
@@ -1185,8 +1254,9 @@ tt_status tt_index_merge(tt_index *out, const char *shard_path, tt_index_merge_s
         st = copy_rows(out, shard, "documents",
                        "ord, seq, name, name_rel, kind, outer_kind, encoding, type, entity, "
                        "period, form, notes, bytes, words_read, numbers, stopwords, "
-                       "short_words, terms_kept, overlong, sentences, distinct_terms, terms",
-                       22, 21, sid, err);
+                       "short_words, terms_kept, overlong, sentences, distinct_terms, terms, "
+                       "analysis",
+                       23, 21, sid, err);
         if (!st)
             st = copy_rows(out, shard, "problems",
                            "ord, name, name_rel, status, line, offset, message, skipped", 8, -1,

@@ -519,6 +519,70 @@ static void test_merge(void **state)
     free(err);
 }
 
+/* index --tone stores each document's tone scores; tone --db then gives
+ * what scoring the files gives, and every mismatch of set-up is refused. */
+static void test_tone_db(void **state)
+{
+    (void)state;
+    char args[2048], p[512];
+    size_t n;
+    snprintf(args, sizeof args, "index -q --tone %s/tone.db demo-corpus/hollowmere "
+             "demo-corpus/ambleworth", tmpdir);
+    assert_int_equal(tt(args, "ix"), 0);
+    static const char *const views[] = {
+        "demo-corpus/hollowmere demo-corpus/ambleworth --total",
+        "--contributors --top 3 demo-corpus/ambleworth",
+        "--manifest demo-corpus/manifest.tsv --kinds call-transcript --consecutive",
+        "-j 2 -f jsonl --manifest demo-corpus/manifest.tsv --kinds quarterly-report",
+    };
+    for (size_t i = 0; i < sizeof views / sizeof *views; i++) {
+        snprintf(args, sizeof args, "tone %s", views[i]);
+        assert_int_equal(tt(args, "files"), 0);
+        snprintf(args, sizeof args, "tone %s --db %s/tone.db", views[i], tmpdir);
+        assert_int_equal(tt(args, "db"), 0);
+        if (!same_file("files.out", "db.out"))
+            fail_msg("tone %s: the index gives other scores than the files", views[i]);
+    }
+    /* the count tables are there too */
+    assert_int_equal(tt("count demo-corpus/hollowmere", "files"), 0);
+    snprintf(args, sizeof args, "count --db %s/tone.db demo-corpus/hollowmere", tmpdir);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_true(same_file("files.out", "db.out"));
+    /* refused: another negation window; an index without tone; a run
+     * without --tone on a tone index; a view that needs the text */
+    static const struct {
+        const char *args, *message;
+    } bad[] = {
+        { "tone --window 2 --db %s/tone.db demo-corpus/hollowmere", "window=2" },
+        { "index %s/tone.db demo-corpus/hollowmere", "index --tone" },
+        { "tone --by part --db %s/tone.db demo-corpus/hollowmere", "read the files" },
+    };
+    for (size_t i = 0; i < sizeof bad / sizeof *bad; i++) {
+        snprintf(args, sizeof args, bad[i].args, tmpdir);
+        assert_int_equal(tt(args, "bad"), 2);
+        snprintf(p, sizeof p, "%s/bad.err", tmpdir);
+        char *err = slurp(p, &n);
+        if (!strstr(err, bad[i].message))
+            fail_msg("%s: %s", args, err);
+        free(err);
+    }
+    snprintf(args, sizeof args, "index -q %s/plain.db demo-corpus/hollowmere", tmpdir);
+    assert_int_equal(tt(args, "plain"), 0);
+    snprintf(args, sizeof args, "tone --db %s/plain.db demo-corpus/hollowmere", tmpdir);
+    assert_int_equal(tt(args, "bad"), 2);
+    snprintf(p, sizeof p, "%s/bad.err", tmpdir);
+    char *err = slurp(p, &n);
+    assert_non_null(strstr(err, "holds no analysis"));
+    free(err);
+    /* a merge keeps the scores; a shard without them is refused */
+    snprintf(args, sizeof args, "merge %s/m.db %s/tone.db %s/plain.db", tmpdir, tmpdir, tmpdir);
+    assert_int_equal(tt(args, "merge"), 2);
+    snprintf(args, sizeof args, "tone demo-corpus/hollowmere --db %s/m.db", tmpdir);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_int_equal(tt("tone demo-corpus/hollowmere", "files"), 0);
+    assert_true(same_file("files.out", "db.out"));
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -529,6 +593,7 @@ int main(void)
         cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readonly_dir, setup, teardown),
         cmocka_unit_test_setup_teardown(test_merge, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_tone_db, setup, teardown),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

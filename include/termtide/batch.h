@@ -74,6 +74,10 @@ typedef struct tt_batch_options {
     void (*worker_free)(void *ctx, void *state);
     tt_status (*analyse)(void *ctx, void *state, const tt_document *doc, tt_buf *out,
                          tt_doc_stats *stats);
+    /* With analyse: count as well. The worker counts the document as usual
+     * (r->table, r->stats, `total`), then calls analyse (its stats are
+     * ignored), whose output is r->prepared; `prepare` is not called. */
+    int analyse_with_count;
     /* Optional: an open index (index.h) to replay the inputs from instead
      * of reading them; the callbacks see what reading would give (see
      * tt_index_replay). Not with `analyse`. */

@@ -48,6 +48,13 @@ void tt_index_close(tt_index *ix);
  * "the index was built with stem=0, this run has stem=1". */
 tt_status tt_index_profile(tt_index *ix, const char *profile, tt_error *err);
 
+/* The analysis stored with each document (e.g. "tone lexicon=... sha=..."),
+ * or NULL/"" for none. A new, empty index (WRITE) takes it; otherwise it
+ * must equal what the index holds, else TT_EINVAL naming both. Once set,
+ * documents written keep r->prepared as their analysis, and a replay with
+ * opt->analyse hands it back as the analysis output. */
+tt_status tt_index_analysis(tt_index *ix, const char *analysis, tt_error *err);
+
 /* What the index holds for a file path (as the source list spells it). */
 typedef struct tt_index_file {
     int found;

@@ -8,6 +8,7 @@
 #include "termtide/index.h"
 #include "termtide/sha256.h"
 #include "cli.h"
+#include "tone_cli.h"
 
 const char tt_help_index[] =
     "Usage: termtide index [OPTIONS] DB PATH...\n"
@@ -26,16 +27,23 @@ const char tt_help_index[] =
     "\n"
     "Options:\n"
     "  --prune               drop files the index holds that are not among PATH\n"
+    "  --tone                also score each document's tone (the shipped lexicon, or\n"
+    "                        --lexicon FILE) so that tone --db answers from the index;\n"
+    "                        chosen when the index is created, then required of every\n"
+    "                        later run\n"
+    "  --lexicon FILE        the lexicon for --tone\n"
     "\n"
     CLI_PIPELINE_HELP
     "\n"
     "Exit status: 0 when every file was indexed, 2 when any was skipped (the others\n"
     "are still indexed) or on bad usage.\n";
 
-enum { OPT_PRUNE = CLI_OPT_FIRST_FREE };
+enum { OPT_PRUNE = CLI_OPT_FIRST_FREE, OPT_TONE, OPT_LEXICON };
 
 static const struct option longopts[] = {
     { "prune", no_argument, NULL, OPT_PRUNE },
+    { "tone", no_argument, NULL, OPT_TONE },
+    { "lexicon", required_argument, NULL, OPT_LEXICON },
     { "help", no_argument, NULL, 'h' },
     CLI_PIPELINE_LONGOPTS,
     { NULL, 0, NULL, 0 }
@@ -52,7 +60,27 @@ typedef struct index_ctx {
     void (*cli_problem)(void *, const char *, const tt_error *, int);
     void (*cli_progress)(void *, size_t, size_t, uint64_t, uint64_t);
     size_t files_done;
+    cli_tone tone;     /* --tone */
 } index_ctx;
+
+static void *tone_worker_new(void *ctx)
+{
+    const index_ctx *c = ctx;
+    return cli_tone_scorer_new(&c->tone);
+}
+
+static void tone_worker_free(void *ctx, void *state)
+{
+    (void)ctx;
+    cli_tone_scorer_free(state);
+}
+
+static tt_status tone_analyse(void *ctx, void *state, const tt_document *doc, tt_buf *out,
+                              tt_doc_stats *stats)
+{
+    (void)ctx;
+    return cli_tone_score(state, doc, out, stats);
+}
 
 /* Opens input i's transaction when it is not open yet. */
 static tt_status ensure_begun(index_ctx *c, size_t i)
@@ -106,7 +134,8 @@ int tt_cmd_index(int argc, char **argv)
     cli_pipeline_init(&c.pipe);
     tt_error_init(&c.err);
     c.current = SIZE_MAX;
-    int opt, rc = TT_EXIT_TROUBLE, prune = 0;
+    int opt, rc = TT_EXIT_TROUBLE, prune = 0, tone = 0;
+    const char *lexicon = NULL;
     tt_source_list inputs, to_read;
     tt_source_list_init(&inputs);
     tt_source_list_init(&to_read);
@@ -124,6 +153,8 @@ int tt_cmd_index(int argc, char **argv)
             continue;
         switch (opt) {
         case OPT_PRUNE: prune = 1; break;
+        case OPT_TONE: tone = 1; break;
+        case OPT_LEXICON: lexicon = optarg; break;
         case 'h': fputs(tt_help_index, stdout); rc = TT_EXIT_OK; goto out;
         default: fprintf(stderr, "Try 'termtide help index'.\n"); goto out;
         }
@@ -137,14 +168,21 @@ int tt_cmd_index(int argc, char **argv)
         goto out;
     }
     const char *db = argv[optind++];
+    if (lexicon && !tone) {
+        cli_error("--lexicon goes with --tone");
+        goto out;
+    }
     if (!cli_pipeline_finish(&c.pipe) || !cli_pipeline_profile(&c.pipe, &profile))
+        goto out;
+    if (tone && !cli_tone_setup(&c.tone, lexicon, 3, NULL))
         goto out;
     if (!cli_expand_inputs(&inputs, argc - optind, argv + optind))
         goto out;
     tt_error err;
     tt_error_init(&err);
     if (tt_index_open(db, TT_INDEX_WRITE, &c.ix, &err) ||
-        tt_index_profile(c.ix, profile.data, &err)) {
+        tt_index_profile(c.ix, profile.data, &err) ||
+        tt_index_analysis(c.ix, tone ? c.tone.desc : NULL, &err)) {
         cli_error("%s", tt_error_format(&err, msg, sizeof msg));
         goto out;
     }
@@ -197,6 +235,12 @@ int tt_cmd_index(int argc, char **argv)
     c.pipe.batch.on_progress = on_progress;
     c.pipe.batch.on_document = on_document;
     c.pipe.batch.ctx = &c;
+    if (tone) {
+        c.pipe.batch.analyse = tone_analyse;
+        c.pipe.batch.analyse_with_count = 1;
+        c.pipe.batch.worker_new = tone_worker_new;
+        c.pipe.batch.worker_free = tone_worker_free;
+    }
     tt_batch_summary sum;
     tt_error_init(&err);
     tt_status st = tt_batch_run(&to_read, &c.pipe.batch, &sum, &err);
@@ -230,6 +274,7 @@ oom:
     cli_error("out of memory");
 out:
     tt_index_close(c.ix);
+    cli_tone_release(&c.tone);
     free(c.sha);
     free(c.size);
     tt_buf_release(&profile);

@@ -14,12 +14,14 @@
 #include <sys/stat.h>
 
 #include "termtide/document.h"
+#include "termtide/index.h"
 #include "termtide/lexicon.h"
 #include "termtide/meta.h"
 #include "termtide/stats.h"
 #include "termtide/tone.h"
 #include "termtide/transcript.h"
 #include "cli.h"
+#include "tone_cli.h"
 
 const char tt_help_tone[] =
     "Usage: termtide tone [OPTIONS] [PATH...]\n"
@@ -93,6 +95,10 @@ const char tt_help_tone[] =
     "                        Pearson's chi-square on that 2x2 table), p two-sided\n"
     "  -f, --format tsv|csv|jsonl   -o, --output FILE   --no-header\n"
     "  -j, --jobs N   --tables keep|drop   --doc-types LIST   -q, --quiet   (as for count)\n"
+    "  --db DB               the whole-document scores stored by termtide index --tone\n"
+    "                        DB (built with the same lexicon and negation rule) instead\n"
+    "                        of reading the files; not with --by, --speakers,\n"
+    "                        --sentences or --labels\n"
     "\n"
     "termtide measures language; it gives no investment, legal or compliance advice.\n";
 
@@ -128,6 +134,7 @@ static const struct option longopts[] = {
     { "tables", required_argument, NULL, CLI_OPT_TABLES },
     { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },
     { "jobs", required_argument, NULL, 'j' },
+    { "db", required_argument, NULL, CLI_OPT_DB },
     { "quiet", no_argument, NULL, 'q' },
     { NULL, 0, NULL, 0 }
 };
@@ -924,43 +931,6 @@ done:
     return st;
 }
 
-static int parse_negators(char *list, const char ***out, size_t *n)
-{
-    for (char *p = list; *p;) {
-        char *comma = strchr(p, ',');
-        size_t len = comma ? (size_t)(comma - p) : strlen(p);
-        const char **l = realloc(*out, (*n + 1) * sizeof *l);
-        if (!l)
-            return 0;
-        *out = l;
-        if (comma)
-            *comma = '\0';
-        l[(*n)++] = p;
-        p += len + (comma ? 1 : 0);
-    }
-    return 1;
-}
-
-static int load_lexicon(tt_lexicon *lex, const char *path)
-{
-    tt_error err;
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
-    tt_error_init(&err);
-    if (path) {
-        if (tt_lexicon_load_file(lex, path, &err)) {
-            cli_error("%s", tt_error_format(&err, msg, sizeof msg));
-            return 0;
-        }
-        return 1;
-    }
-    const char *text = tt_builtin_lexicon("finance");
-    if (!text || tt_lexicon_load_text(lex, text, strlen(text), "finance", &err)) {
-        cli_error("built-in lexicon: %s", tt_error_format(&err, msg, sizeof msg));
-        return 0;
-    }
-    return 1;
-}
-
 static void check_lexicon(const tt_lexicon *lex, const char *path)
 {
     size_t pairs[256][2];
@@ -989,8 +959,8 @@ int tt_cmd_tone(int argc, char **argv)
     tt_error_init(&c.err);
     const char *lexicon_path = NULL, *output = NULL, *labels_path = NULL, *by = NULL;
     char *negator_list = NULL;
-    const char **negators = NULL;
-    size_t n_negators = 0;
+    cli_tone setup;
+    memset(&setup, 0, sizeof setup);
     uint64_t window = 3, top = 10;
     int check = 0, opt, rc = TT_EXIT_TROUBLE, out_open = 0, headers = 0, speakers = 0;
     int contributors = 0, sentences = 0;
@@ -1114,26 +1084,32 @@ int tt_cmd_tone(int argc, char **argv)
     c.nkeys = c.by_part && c.by_role ? TT_TURN_PARTS * TT_TURN_ROLES
               : c.by_part ? TT_TURN_PARTS : c.by_role ? TT_TURN_ROLES : 1;
 
-    if (!(lex = tt_lexicon_new()))
-        goto oom;
-    if (!load_lexicon(lex, lexicon_path))
+    if (!cli_tone_setup(&setup, lexicon_path, window, negator_list))
         goto out;
+    lex = setup.lex;
     if (check) {
         check_lexicon(lex, lexicon_path);
         rc = TT_EXIT_OK;
         goto out;
     }
-    tt_tone_options_init(&c.topt, lex);
-    c.topt.window = (size_t)window;
-    if (window == 0)
-        c.topt.positive = c.topt.negative = -1;
-    if (negator_list) {
-        if (!parse_negators(negator_list, &negators, &n_negators))
-            goto oom;
-        c.topt.negators = negators;
-        c.topt.n_negators = n_negators;
-    }
+    c.topt = setup.opt;
     c.lex = lex;
+    if (c.pipe.db) {
+        /* scores made at indexing time (index --tone) with this set-up */
+        tt_error e;
+        tt_error_init(&e);
+        if (c.view == VIEW_SPEAKERS || c.view == VIEW_SENTENCES || c.view == VIEW_LABELS || by) {
+            cli_error("--db holds whole-document scores: --by, --speakers, --sentences and "
+                      "--labels read the files");
+            goto out;
+        }
+        if (tt_index_open(c.pipe.db, TT_INDEX_READ, &c.pipe.index, &e) ||
+            tt_index_analysis(c.pipe.index, setup.desc, &e)) {
+            cli_error("%s", tt_error_format(&e, msg, sizeof msg));
+            goto out;
+        }
+        c.pipe.batch.index = c.pipe.index;
+    }
     c.ncat = tt_lexicon_category_count(lex);
     c.pos = tt_lexicon_category_find(lex, "positive", NULL);
     c.neg = tt_lexicon_category_find(lex, "negative", NULL);
@@ -1249,7 +1225,6 @@ out:
         free(c.owned[i]);
     free(c.owned);
     free(c.cols);
-    free(negators);
     for (size_t i = 0; i < c.n_units; i++) {
         free(c.units[i].document);
         free(c.units[i].label);
@@ -1262,7 +1237,7 @@ out:
     scores_free(c.prev, c.nkeys);
     tt_series_release(&series);
     tt_manifest_release(&m);
-    tt_lexicon_free(lex);
+    cli_tone_release(&setup);
     tt_source_list_release(&inputs);
     tt_buf_release(&c.buf);
     cli_pipeline_release(&c.pipe);
