@@ -13,6 +13,7 @@
  * the standard's examples ("abc" and the 448-bit message) and against
  * Python's hashlib. */
 #include <errno.h>
+#include <pthread.h>
 #include <stdio.h>
 #if defined(__x86_64__) || defined(__i386__)
 #include <cpuid.h>
@@ -120,11 +121,24 @@ static int cpu_has_sha(void)
 }
 #endif
 
-/* -1 unknown, 0 portable, 1 SHA-NI. Set once; a race writes the same value. */
+/* -1 unknown, 0 portable, 1 SHA-NI; found once (pthread_once) or set by
+ * tt_sha256_accelerated before threads start. */
 static int accel = -1;
+static pthread_once_t accel_once = PTHREAD_ONCE_INIT;
+
+static void detect(void)
+{
+#ifdef TT_SHA_NI
+    if (accel < 0)
+        accel = cpu_has_sha();
+#else
+    accel = 0;
+#endif
+}
 
 int tt_sha256_accelerated(int enable)
 {
+    pthread_once(&accel_once, detect);
 #ifdef TT_SHA_NI
     accel = enable ? cpu_has_sha() : 0;
 #else
@@ -136,9 +150,8 @@ int tt_sha256_accelerated(int enable)
 
 static void compress_blocks(uint32_t s[8], const unsigned char *p, size_t blocks)
 {
+    pthread_once(&accel_once, detect);
 #ifdef TT_SHA_NI
-    if (accel < 0)
-        accel = cpu_has_sha();
     if (accel) {
         compress_ni(s, p, blocks);
         return;

@@ -22,6 +22,7 @@ static const tt_command commands[] = {
     { "tone", tt_cmd_tone, "words by lexicon category per document, with negation", tt_help_tone },
     { "index", tt_cmd_index, "count files into a persistent index, reading only what changed", tt_help_index },
     { "merge", tt_cmd_merge, "combine indexes built over parts of an archive into one", tt_help_merge },
+    { "search", tt_cmd_search, "where watched language appears: hits in context, counts", tt_help_search },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 

@@ -1,0 +1,742 @@
+/* termtide — watch-lists: rule lines parsed, checked and compiled with
+ * PCRE2 (see include/termtide/search.h for the format).
+ *
+ * Every line is checked even after a problem, so one run reports them all;
+ * a watch-list with any problem is never used. Each rule's pattern is
+ * compiled as written first, so a compile error's offset points into the
+ * pattern the user wrote; with whole words it is compiled again wrapped in
+ * lookarounds, (?<![\w])(?:P)(?![\w]) under UCP, which unlike \b also works
+ * for a pattern that starts or ends with a non-word character ("$5").
+ *
+ * Prefilter and scan. All rules' patterns are also compiled into one
+ * alternation, (?:P1)|(?:P2)|..., which finds, in one pass over a block,
+ * each leftmost position where some rule matches (an alternation matches
+ * at a position whenever one of its branches does); search.c tries the
+ * pattern rules there, each compiled a second time anchored, and runs the
+ * near() rules (which take part through their A pattern) only on blocks
+ * where the alternation found something. Rules whose meaning would change
+ * inside a bigger pattern are left out of it and run on every block on
+ * their own: numbered back-references and subroutine calls (the group
+ * numbers shift), conditionals on groups, backtracking verbs ((*COMMIT)
+ * would stop the other branches), and patterns that can match the empty
+ * string (the alternation would then stop at every position). When the alternation does not compile
+ * (an extended-mode comment eating the closing parenthesis) or there is one
+ * rule, every rule runs on its own.
+ *
+ * PCRE2 allocates through tt_malloc (a general context), so a failing
+ * allocator reaches the pattern compiler too. */
+#include "search_internal.h"
+
+static void *pcre_alloc(size_t n, void *data)
+{
+    (void)data;
+    return tt_malloc(n);
+}
+
+static void pcre_free(void *p, void *data)
+{
+    (void)data;
+    tt_free(p);
+}
+
+void tt_search_options_init(tt_search_options *o)
+{
+    o->case_sensitive = 0;
+    o->whole_words = 0;
+    o->context = 8;
+}
+
+tt_watchlist *tt_watchlist_new(const tt_search_options *opt)
+{
+    tt_watchlist *wl = tt_calloc(1, sizeof *wl);
+    if (!wl)
+        return NULL;
+    if (opt)
+        wl->opt = *opt;
+    else
+        tt_search_options_init(&wl->opt);
+    if (wl->opt.context > TT_LIMIT_SEARCH_CONTEXT)
+        wl->opt.context = TT_LIMIT_SEARCH_CONTEXT;
+    wl->gctx = pcre2_general_context_create(pcre_alloc, pcre_free, NULL);
+    if (!wl->gctx) {
+        tt_free(wl);
+        return NULL;
+    }
+    wl->jit = 1;
+    tt_sha256_init(&wl->hash);
+    return wl;
+}
+
+static void code_free(pcre2_code *c)
+{
+    if (c)
+        pcre2_code_free(c);
+}
+
+void tt_watchlist_free(tt_watchlist *wl)
+{
+    if (!wl)
+        return;
+    for (size_t i = 0; i < wl->n; i++) {
+        tti_rule *r = &wl->rules[i];
+        tt_free((char *)r->pub.name);
+        tt_free((char *)r->pub.pattern);
+        tt_free((char *)r->pub.note);
+        code_free(r->code);
+        code_free(r->code_b);
+        code_free(r->anchored);
+    }
+    tt_free(wl->rules);
+    tt_free(wl->problems);
+    code_free(wl->prefilter);
+    tt_free(wl->always);
+    tt_free(wl->scan);
+    tt_free(wl->gated);
+    tt_free(wl->whole);
+    pcre2_general_context_free(wl->gctx);
+    tt_free(wl);
+}
+
+size_t tt_watchlist_problem_count(const tt_watchlist *wl) { return wl->n_problems; }
+const tt_error *tt_watchlist_problem(const tt_watchlist *wl, size_t i)
+{
+    return i < wl->n_problems ? &wl->problems[i] : NULL;
+}
+size_t tt_watchlist_size(const tt_watchlist *wl) { return wl->n; }
+const tt_rule *tt_watchlist_rule(const tt_watchlist *wl, size_t i)
+{
+    return i < wl->n ? &wl->rules[i].pub : NULL;
+}
+const char *tt_watchlist_sha256(const tt_watchlist *wl) { return wl->sha256; }
+int tt_watchlist_jit(const tt_watchlist *wl) { return wl->n > 0 && wl->jit; }
+
+/* Records a problem (the first TT_LIMIT_WATCHLIST_PROBLEMS are kept). */
+static tt_status problem(tt_watchlist *wl, const char *file, long line, const char *fmt, ...)
+    __attribute__((format(printf, 4, 5)));
+static tt_status problem(tt_watchlist *wl, const char *file, long line, const char *fmt, ...)
+{
+    wl->problems_total++;
+    if (wl->n_problems >= TT_LIMIT_WATCHLIST_PROBLEMS)
+        return TT_OK;
+    if (!wl->problems) {
+        wl->problems = tt_calloc(TT_LIMIT_WATCHLIST_PROBLEMS, sizeof *wl->problems);
+        if (!wl->problems)
+            return TT_ENOMEM;
+    }
+    tt_error *e = &wl->problems[wl->n_problems++];
+    tt_error_init(e);
+    char msg[TT_ERROR_MSG_MAX];
+    va_list ap;
+    va_start(ap, fmt);
+    vsnprintf(msg, sizeof msg, fmt, ap);
+    va_end(ap);
+    tt_error_set_line(e, TT_EPARSE, file, line, "%s", msg);
+    return TT_OK;
+}
+
+/* Whether a pattern holds an item PCRE2_UCP changes: \b \B \d \D \s \S
+ * \w \W or a POSIX class ([:alpha:] ...). Only those: with PCRE2_UTF,
+ * caseless matching already follows Unicode (pcre2api, PCRE2_CASELESS). A
+ * pattern without them is compiled without UCP, which means the same and
+ * lets the JIT keep its fast search for the first characters (measured
+ * here: a caseless phrase over 97 MB in 0.01 s instead of 0.17 s). */
+static int needs_ucp(const char *p, size_t n)
+{
+    for (size_t i = 0; i < n; i++) {
+        if (p[i] == '\\' && i + 1 < n) {
+            if (strchr("bBdDsSwW", p[i + 1]))
+                return 1;
+            i++;
+        } else if (p[i] == '[' && i + 1 < n && p[i + 1] == ':') {
+            return 1;
+        } else if (p[i] == '(' && i + 1 < n && p[i + 1] == '*') {
+            return 1; /* a leading (*UCP) or other verb: keep the documented default */
+        }
+    }
+    return 0;
+}
+
+/* Compiles one pattern (extra: more compile options); on failure fills msg
+ * and *erroff (bytes). */
+static pcre2_code *compile_with(tt_watchlist *wl, const char *pat, size_t len, int wrap_words,
+                                uint32_t extra, char *msg, size_t msgsize, size_t *erroff,
+                                int *nomem)
+{
+    /* \C (one code unit) could end a hit inside a character: refused */
+    uint32_t options = PCRE2_UTF | PCRE2_MATCH_INVALID_UTF | PCRE2_NEVER_BACKSLASH_C | extra;
+    if (needs_ucp(pat, len))
+        options |= PCRE2_UCP;
+    if (!wl->opt.case_sensitive)
+        options |= PCRE2_CASELESS;
+    pcre2_compile_context *cctx = pcre2_compile_context_create(wl->gctx);
+    if (!cctx) {
+        *nomem = 1;
+        return NULL;
+    }
+    tt_buf wrapped;
+    tt_buf_init(&wrapped, 0);
+    const char *p = pat;
+    size_t n = len;
+    if (wrap_words) {
+        /* \w under PCRE2_UCP, written out so the wrapper needs no UCP */
+        if (tt_buf_puts(&wrapped, "(?<![\\p{L}\\p{N}_])(?:") || tt_buf_append(&wrapped, pat, len) ||
+            tt_buf_puts(&wrapped, ")(?![\\p{L}\\p{N}_])")) {
+            pcre2_compile_context_free(cctx);
+            *nomem = 1;
+            return NULL;
+        }
+        p = wrapped.data;
+        n = wrapped.len;
+    }
+    int errcode = 0;
+    PCRE2_SIZE off = 0;
+    pcre2_code *code = pcre2_compile((PCRE2_SPTR)p, n, options, &errcode, &off, cctx);
+    pcre2_compile_context_free(cctx);
+    tt_buf_release(&wrapped);
+    if (!code) {
+        if (errcode == PCRE2_ERROR_HEAPLIMIT || errcode == PCRE2_ERROR_NOMEMORY)
+            *nomem = 1;
+        pcre2_get_error_message(errcode, (PCRE2_UCHAR *)msg, msgsize);
+        *erroff = off;
+        return NULL;
+    }
+    if (pcre2_jit_compile(code, PCRE2_JIT_COMPLETE) != 0)
+        wl->jit = 0; /* the interpreter runs it, with the same limits */
+    return code;
+}
+
+static pcre2_code *compile(tt_watchlist *wl, const char *pat, size_t len, int wrap_words,
+                           char *msg, size_t msgsize, size_t *erroff, int *nomem)
+{
+    return compile_with(wl, pat, len, wrap_words, 0, msg, msgsize, erroff, nomem);
+}
+
+/* A rule whose pattern means something else inside a bigger alternation
+ * (see the top of the file). Conservative: a false "yes" only costs speed. */
+static int unsafe_in_alternation(const char *p, size_t n)
+{
+    for (size_t i = 0; i + 1 < n; i++) {
+        if (p[i] == '\\') {
+            char c = p[i + 1];
+            if ((c >= '1' && c <= '9') || c == 'g' || c == 'k')
+                return 1;
+            i++;
+            continue;
+        }
+        if (p[i] == '(' && (p[i + 1] == '*' || p[i + 1] == '?')) {
+            if (p[i + 1] == '*')
+                return 1;
+            char c = i + 2 < n ? p[i + 2] : 0;
+            if (c == 'R' || c == '&' || c == '(' || c == '+' || c == '-' ||
+                (c >= '0' && c <= '9'))
+                return 1;
+            if (c == 'P' && i + 3 < n && (p[i + 3] == '>' || p[i + 3] == '='))
+                return 1;
+        }
+    }
+    return 0;
+}
+
+static int is_space(char c) { return c == ' ' || c == '\t'; }
+
+/* Commas outside (), [] and {} (escapes skipped). */
+static size_t top_level_commas(const char *f, size_t n)
+{
+    size_t commas = 0;
+    int depth = 0, in_class = 0;
+    for (size_t i = 0; i < n; i++) {
+        char c = f[i];
+        if (c == '\\') {
+            i++;
+        } else if (in_class) {
+            in_class = c != ']';
+        } else if (c == '[') {
+            in_class = 1;
+            if (i + 1 < n && f[i + 1] == ']')
+                i++;
+        } else if (c == '(' || c == '{') {
+            depth++;
+        } else if ((c == ')' || c == '}') && depth > 0) {
+            depth--;
+        } else if (c == ',' && depth == 0) {
+            commas++;
+        }
+    }
+    return commas;
+}
+
+/* Splits "near(A, B, N)" (the whole field); returns 0 and a message when
+ * malformed. a/b are offsets and lengths within the field. */
+static int split_near(const char *f, size_t n, size_t *a, size_t *alen, size_t *b,
+                      size_t *blen, size_t *words, char *msg, size_t msgsize)
+{
+    if (n < 6 || f[n - 1] != ')') {
+        snprintf(msg, msgsize, "near(A, B, N) must end with ')'");
+        return 0;
+    }
+    size_t end = n - 1; /* the closing ')' */
+    if (top_level_commas(f + 5, end - 5) < 2) {
+        snprintf(msg, msgsize, "near(A, B, N) needs three arguments");
+        return 0;
+    }
+    size_t last = end;
+    while (last > 5 && f[last - 1] != ',')
+        last--;
+    if (last <= 5) {
+        snprintf(msg, msgsize, "near(A, B, N) needs three arguments");
+        return 0;
+    }
+    /* N: digits between the last comma and ')' */
+    size_t p = last;
+    while (p < end && is_space(f[p]))
+        p++;
+    size_t q = end;
+    while (q > p && is_space(f[q - 1]))
+        q--;
+    if (p == q || q - p > 3) {
+        snprintf(msg, msgsize, "near(A, B, N): N must be a number of words from 0 to %d",
+                 TT_LIMIT_NEAR_WORDS);
+        return 0;
+    }
+    size_t v = 0;
+    for (size_t i = p; i < q; i++) {
+        if (f[i] < '0' || f[i] > '9') {
+            snprintf(msg, msgsize, "near(A, B, N): N must be a number of words from 0 to %d",
+                     TT_LIMIT_NEAR_WORDS);
+            return 0;
+        }
+        v = v * 10 + (size_t)(f[i] - '0');
+    }
+    if (v > TT_LIMIT_NEAR_WORDS) {
+        snprintf(msg, msgsize, "near(A, B, N): N must be a number of words from 0 to %d",
+                 TT_LIMIT_NEAR_WORDS);
+        return 0;
+    }
+    /* A and B: the first comma outside (), [] and {} (escapes skipped) */
+    size_t start = 5, split = 0;
+    int depth = 0, in_class = 0;
+    for (size_t i = start; i < last - 1; i++) {
+        char c = f[i];
+        if (c == '\\') {
+            i++;
+            continue;
+        }
+        if (in_class) {
+            if (c == ']')
+                in_class = 0;
+            continue;
+        }
+        if (c == '[') {
+            in_class = 1;
+            if (i + 1 < last - 1 && f[i + 1] == ']')
+                i++; /* "[]...]": a leading ] is literal */
+        } else if (c == '(' || c == '{') {
+            depth++;
+        } else if ((c == ')' || c == '}') && depth > 0) {
+            depth--;
+        } else if (c == ',' && depth == 0) {
+            split = i;
+            break;
+        }
+    }
+    if (!split) {
+        snprintf(msg, msgsize, "near(A, B, N) needs two patterns separated by a comma");
+        return 0;
+    }
+    size_t as = start, ae = split, bs = split + 1, be = last - 1;
+    while (as < ae && is_space(f[as]))
+        as++;
+    while (ae > as && is_space(f[ae - 1]))
+        ae--;
+    while (bs < be && is_space(f[bs]))
+        bs++;
+    while (be > bs && is_space(f[be - 1]))
+        be--;
+    if (as == ae || bs == be) {
+        snprintf(msg, msgsize, "near(A, B, N): a pattern is empty");
+        return 0;
+    }
+    *a = as;
+    *alen = ae - as;
+    *b = bs;
+    *blen = be - bs;
+    *words = v;
+    return 1;
+}
+
+/* Whether a pattern may run over a document's whole text at once (see
+ * search.c): it holds no anchor (^ $ \\A \\z \\Z \\G), no \\K, no lookaround
+ * and no verb, the only items that could see past a block's end without
+ * consuming the separator. Conservative: a '^' in a class counts too. */
+static int whole_text_ok(const char *p, size_t n)
+{
+    for (size_t i = 0; i < n; i++) {
+        if (p[i] == '\\' && i + 1 < n) {
+            if (strchr("AzZGK", p[i + 1]))
+                return 0;
+            i++;
+        } else if (p[i] == '^' || p[i] == '$') {
+            return 0;
+        } else if (p[i] == '(' && i + 2 < n && (p[i + 1] == '*' ||
+                   (p[i + 1] == '?' && (p[i + 2] == '=' || p[i + 2] == '!' || p[i + 2] == '<')))) {
+            return 0;
+        }
+    }
+    return 1;
+}
+
+/* Checks and compiles one rule; a problem is recorded and TT_OK returned
+ * (the caller goes on with the next line); TT_ENOMEM is fatal. */
+static tt_status add_rule(tt_watchlist *wl, const char *file, long line, const char *name,
+                          size_t name_len, const char *pat, size_t pat_len, const char *note,
+                          size_t note_len)
+{
+    char msg[256];
+    if (name_len == 0)
+        return problem(wl, file, line, "the rule has no name (expected name<TAB>pattern)");
+    if (pat_len == 0)
+        return problem(wl, file, line, "rule '%.*s' has no pattern", (int)name_len, name);
+    for (size_t i = 0; i < wl->n; i++)
+        if (strlen(wl->rules[i].pub.name) == name_len &&
+            !memcmp(wl->rules[i].pub.name, name, name_len))
+            return problem(wl, file, line, "rule name '%.*s' is used twice (first on line %ld)",
+                           (int)name_len, name, wl->rules[i].pub.line);
+    if (wl->n >= TT_LIMIT_WATCHLIST_RULES)
+        return problem(wl, file, line, "more than %d rules", TT_LIMIT_WATCHLIST_RULES);
+
+    tti_rule r;
+    memset(&r, 0, sizeof r);
+    r.pub.line = line;
+    int nomem = 0, words = wl->opt.whole_words;
+    size_t erroff = 0;
+    if (pat_len >= 5 && !memcmp(pat, "near(", 5)) {
+        size_t a, alen, b, blen, n;
+        if (!split_near(pat, pat_len, &a, &alen, &b, &blen, &n, msg, sizeof msg))
+            return problem(wl, file, line, "rule '%.*s': %s", (int)name_len, name, msg);
+        r.pub.kind = TT_RULE_NEAR;
+        r.pub.near_words = n;
+        r.a_off = a;
+        r.a_len = alen;
+        pcre2_code *ca = compile(wl, pat + a, alen, 0, msg, sizeof msg, &erroff, &nomem);
+        if (!ca)
+            goto bad_a;
+        code_free(ca);
+        pcre2_code *cb = compile(wl, pat + b, blen, 0, msg, sizeof msg, &erroff, &nomem);
+        if (!cb) {
+            erroff += b;
+            goto bad;
+        }
+        code_free(cb);
+        r.code = compile(wl, pat + a, alen, words, msg, sizeof msg, &erroff, &nomem);
+        r.code_b = r.code ? compile(wl, pat + b, blen, words, msg, sizeof msg, &erroff, &nomem)
+                          : NULL;
+        if (!r.code || !r.code_b)
+            goto bad_wrap;
+        goto store;
+    bad_a:
+        erroff += a;
+        goto bad;
+    }
+    r.pub.kind = TT_RULE_PATTERN;
+    r.a_off = 0;
+    r.a_len = pat_len;
+    {
+        pcre2_code *c = compile(wl, pat, pat_len, 0, msg, sizeof msg, &erroff, &nomem);
+        if (!c)
+            goto bad;
+        if (!words) {
+            r.code = c;
+            goto store;
+        }
+        code_free(c);
+        r.code = compile(wl, pat, pat_len, 1, msg, sizeof msg, &erroff, &nomem);
+        if (!r.code)
+            goto bad_wrap;
+    }
+store:
+    r.pub.name = tt_strndup(name, name_len);
+    r.pub.pattern = tt_strndup(pat, pat_len);
+    r.pub.note = tt_strndup(note ? note : "", note ? note_len : 0);
+    r.alternation_safe = !unsafe_in_alternation(pat + r.a_off, r.a_len);
+    /* a pattern that can match the empty string would stop the prefilter
+     * at every position: it runs on its own */
+    uint32_t min_len = 0;
+    if (pcre2_pattern_info(r.code, PCRE2_INFO_MINLENGTH, &min_len) == 0 && min_len == 0)
+        r.alternation_safe = 0;
+    /* A pattern that must start with a known character is found fastest
+     * on its own (the JIT scans for that character with SIMD; an
+     * alternation of many such patterns has no single one to look for). */
+    uint32_t first = 0;
+    r.fast = r.pub.kind == TT_RULE_PATTERN &&
+             pcre2_pattern_info(r.code, PCRE2_INFO_FIRSTCODETYPE, &first) == 0 && first == 1;
+    r.whole_text = r.fast && whole_text_ok(pat, pat_len);
+    if (!r.pub.name || !r.pub.pattern || !r.pub.note)
+        goto nomem;
+    if (wl->n == wl->cap) {
+        size_t cap = wl->cap ? wl->cap * 2 : 16;
+        tti_rule *rules = tt_reallocarray(wl->rules, cap, sizeof *rules);
+        if (!rules)
+            goto nomem;
+        wl->rules = rules;
+        wl->cap = cap;
+    }
+    wl->rules[wl->n++] = r;
+    return TT_OK;
+bad_wrap:
+    if (nomem)
+        goto nomem;
+    code_free(r.code);
+    return problem(wl, file, line, "rule '%.*s': the pattern cannot be used for whole words: %s",
+                   (int)name_len, name, msg);
+bad:
+    if (nomem)
+        goto nomem;
+    return problem(wl, file, line, "rule '%.*s': pattern error at offset %zu: %s", (int)name_len,
+                   name, erroff, msg);
+nomem:
+    tt_free((char *)r.pub.name);
+    tt_free((char *)r.pub.pattern);
+    tt_free((char *)r.pub.note);
+    code_free(r.code);
+    code_free(r.code_b);
+    return TT_ENOMEM;
+}
+
+/* The prefilter alternation over the rules that can take part, and each
+ * rule's list (see search_internal.h): without a prefilter every rule is in
+ * `always`. */
+static tt_status build_prefilter(tt_watchlist *wl)
+{
+    code_free(wl->prefilter);
+    wl->prefilter = NULL;
+    tt_free(wl->always);
+    tt_free(wl->scan);
+    tt_free(wl->gated);
+    tt_free(wl->whole);
+    wl->n_always = wl->n_scan = wl->n_gated = wl->n_whole = 0;
+    size_t cap = wl->n ? wl->n : 1;
+    wl->always = tt_calloc(cap, sizeof *wl->always);
+    wl->scan = tt_calloc(cap, sizeof *wl->scan);
+    wl->gated = tt_calloc(cap, sizeof *wl->gated);
+    wl->whole = tt_calloc(cap, sizeof *wl->whole);
+    if (!wl->always || !wl->scan || !wl->gated || !wl->whole)
+        return TT_ENOMEM;
+    for (size_t i = 0; i < wl->n; i++) {
+        code_free(wl->rules[i].anchored);
+        wl->rules[i].anchored = NULL;
+    }
+    tt_buf alt;
+    tt_buf_init(&alt, 0);
+    tt_status st = TT_OK;
+    size_t members = 0;
+    for (size_t i = 0; i < wl->n && !st; i++) {
+        const tti_rule *r = &wl->rules[i];
+        if (!r->alternation_safe || r->fast)
+            continue;
+        if (members++)
+            st = tt_buf_putc(&alt, '|');
+        if (!st) st = tt_buf_puts(&alt, "(?:");
+        if (!st) st = tt_buf_append(&alt, r->pub.pattern + r->a_off, r->a_len);
+        if (!st) st = tt_buf_putc(&alt, ')');
+    }
+    char msg[128];
+    size_t off;
+    int nomem = 0, jit = wl->jit;
+    if (!st && members > 1) {
+        /* one rule alone needs no prefilter: the rule is its own */
+        wl->prefilter = compile(wl, alt.data, alt.len, 0, msg, sizeof msg, &off, &nomem);
+        if (nomem)
+            st = TT_ENOMEM;
+    }
+    tt_buf_release(&alt);
+    for (size_t i = 0; i < wl->n && !st; i++) {
+        tti_rule *r = &wl->rules[i];
+        if (r->whole_text) {
+            wl->whole[wl->n_whole++] = i;
+        } else if (!wl->prefilter || !r->alternation_safe || r->fast) {
+            wl->always[wl->n_always++] = i;
+        } else if (r->pub.kind == TT_RULE_NEAR) {
+            wl->gated[wl->n_gated++] = i;
+        } else {
+            r->anchored = compile_with(wl, r->pub.pattern, r->a_len, wl->opt.whole_words,
+                                       PCRE2_ANCHORED, msg, sizeof msg, &off, &nomem);
+            if (r->anchored)
+                wl->scan[wl->n_scan++] = i;
+            else if (nomem)
+                st = TT_ENOMEM;
+            else
+                wl->always[wl->n_always++] = i;
+        }
+    }
+    wl->jit = jit; /* the prefilter's JIT does not change what the rules use */
+    return st;
+}
+
+static void finish_hash(tt_watchlist *wl)
+{
+    tt_sha256 h = wl->hash; /* a copy: more rules may be added later */
+    unsigned char d[32];
+    tt_sha256_final(&h, d);
+    static const char hex[] = "0123456789abcdef";
+    for (int i = 0; i < 32; i++) {
+        wl->sha256[2 * i] = hex[d[i] >> 4];
+        wl->sha256[2 * i + 1] = hex[d[i] & 15];
+    }
+    wl->sha256[64] = '\0';
+}
+
+static tt_status finish(tt_watchlist *wl, tt_error *err)
+{
+    finish_hash(wl);
+    if (wl->problems_total) {
+        if (err)
+            *err = wl->problems[0];
+        return TT_EPARSE;
+    }
+    return build_prefilter(wl) ? tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory")
+                               : TT_OK;
+}
+
+tt_status tt_watchlist_parse(tt_watchlist *wl, const char *text, size_t len, const char *name,
+                             tt_error *err)
+{
+    const char *file = name ? name : "";
+    tt_sha256_update(&wl->hash, text, len);
+    size_t pos = 0;
+    long line = 0;
+    size_t rules_before = wl->n;
+    if (len >= 3 && !memcmp(text, "\xEF\xBB\xBF", 3))
+        pos = 3;
+    while (pos < len) {
+        line++;
+        const char *l = text + pos;
+        const char *nl = memchr(l, '\n', len - pos);
+        size_t n = nl ? (size_t)(nl - l) : len - pos;
+        pos += n + (nl ? 1 : 0);
+        if (n && l[n - 1] == '\r')
+            n--;
+        if (n > TT_LIMIT_WATCHLIST_LINE) {
+            if (problem(wl, file, line, "line longer than %d bytes", TT_LIMIT_WATCHLIST_LINE))
+                goto nomem;
+            continue;
+        }
+        /* valid UTF-8, no control characters but TAB */
+        size_t bad = (size_t)-1;
+        int ctrl = 0;
+        for (size_t i = 0; i < n;) {
+            unsigned char c = (unsigned char)l[i];
+            if (c < 0x80) {
+                if ((c < 0x20 && c != '\t') || c == 0x7F) {
+                    bad = i;
+                    ctrl = 1;
+                    break;
+                }
+                i++;
+                continue;
+            }
+            uint32_t cp;
+            size_t k = tti_utf8_decode((const unsigned char *)l + i, n - i, &cp);
+            if (cp == 0xFFFD && !(k == 3 && (unsigned char)l[i] == 0xEF)) {
+                bad = i;
+                break;
+            }
+            i += k;
+        }
+        if (bad != (size_t)-1) {
+            if (problem(wl, file, line, ctrl ? "control character (byte 0x%02X) at column %zu"
+                                             : "invalid UTF-8 (byte 0x%02X) at column %zu",
+                        (unsigned char)l[bad], bad + 1))
+                goto nomem;
+            continue;
+        }
+        size_t s = 0;
+        while (s < n && (l[s] == ' ' || l[s] == '\t'))
+            s++;
+        if (s == n || l[s] == '#')
+            continue;
+        const char *tab1 = memchr(l, '\t', n);
+        if (!tab1) {
+            if (problem(wl, file, line, "expected name<TAB>pattern[<TAB>note], found no tab"))
+                goto nomem;
+            continue;
+        }
+        const char *f2 = tab1 + 1;
+        size_t rest = n - (size_t)(f2 - l);
+        const char *tab2 = memchr(f2, '\t', rest);
+        const char *note = NULL;
+        size_t note_len = 0, pat_len = tab2 ? (size_t)(tab2 - f2) : rest;
+        if (tab2) {
+            note = tab2 + 1;
+            note_len = n - (size_t)(note - l);
+            if (memchr(note, '\t', note_len)) {
+                if (problem(wl, file, line, "more than three tab-separated fields"))
+                    goto nomem;
+                continue;
+            }
+        }
+        /* the name without surrounding blanks; the pattern as written */
+        const char *nm = l;
+        size_t nm_len = (size_t)(tab1 - l);
+        while (nm_len && *nm == ' ') {
+            nm++;
+            nm_len--;
+        }
+        while (nm_len && nm[nm_len - 1] == ' ')
+            nm_len--;
+        if (add_rule(wl, file, line, nm, nm_len, f2, pat_len, note, note_len))
+            goto nomem;
+    }
+    if (wl->n == rules_before && !wl->problems_total &&
+        problem(wl, file, 0, "the watch-list holds no rule"))
+        goto nomem;
+    return finish(wl, err);
+nomem:
+    return tt_error_set(err, TT_ENOMEM, file, -1, "out of memory");
+}
+
+tt_status tt_watchlist_load(tt_watchlist *wl, const char *path, tt_error *err)
+{
+    tt_buf b;
+    tt_buf_init(&b, TT_LIMIT_WATCHLIST_BYTES);
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        int e = errno;
+        tt_buf_release(&b);
+        return tt_error_set(err, e == ENOENT ? TT_ENOENT : TT_EIO, path, -1, "%s", strerror(e));
+    }
+    char piece[65536];
+    size_t n;
+    tt_status st = TT_OK;
+    while (!st && (n = fread(piece, 1, sizeof piece, f)) > 0)
+        st = tt_buf_append(&b, piece, n);
+    int bad = ferror(f);
+    fclose(f);
+    if (st == TT_ELIMIT)
+        st = tt_error_set(err, st, path, -1, "watch-list larger than %zu bytes",
+                          (size_t)TT_LIMIT_WATCHLIST_BYTES);
+    else if (st)
+        st = tt_error_set(err, st, path, -1, "out of memory");
+    else if (bad)
+        st = tt_error_set(err, TT_EIO, path, -1, "read error");
+    else
+        st = tt_watchlist_parse(wl, b.data, b.len, path, err);
+    tt_buf_release(&b);
+    return st;
+}
+
+tt_status tt_watchlist_add(tt_watchlist *wl, const char *name, const char *pattern,
+                           const char *note, tt_error *err)
+{
+    size_t pl = strlen(pattern);
+    tt_sha256_update(&wl->hash, pattern, pl);
+    tt_sha256_update(&wl->hash, "\n", 1);
+    for (size_t i = 0; i < pl; i++)
+        if ((unsigned char)pattern[i] < 0x20 || pattern[i] == 0x7F) {
+            if (problem(wl, "", 0, "pattern holds a control character"))
+                return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory");
+            return finish(wl, err);
+        }
+    if (add_rule(wl, "", 0, name, strlen(name), pattern, pl, note, note ? strlen(note) : 0))
+        return tt_error_set(err, TT_ENOMEM, NULL, -1, "out of memory");
+    return finish(wl, err);
+}
