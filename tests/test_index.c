@@ -505,6 +505,43 @@ static void test_merge(void **state)
         if (!same_file("files.out", "db.out"))
             fail_msg("count %s: the merged index differs from one run", views[i]);
     }
+    /* count tables merge the same way: per document and total, with a part
+     * given twice counted once, and --total-only totals */
+    static const char *const table_opts[] = { "--total", "--total --per 10000", "--total-only" };
+    for (size_t i = 0; i < 3; i++) {
+        snprintf(args, sizeof args, "count %s demo-corpus/hollowmere demo-corpus/ambleworth "
+                 "%s/archive/a %s/archive/b", table_opts[i], tmpdir, tmpdir);
+        assert_int_equal(tt(args, "files"), 0);
+        char parts[4][512];
+        const char *dirs[4] = { "demo-corpus/hollowmere", "demo-corpus/ambleworth", NULL, NULL };
+        char da[512], dbb[512];
+        snprintf(da, sizeof da, "%s/archive/a", tmpdir);
+        snprintf(dbb, sizeof dbb, "%s/archive/b", tmpdir);
+        dirs[2] = da;
+        dirs[3] = dbb;
+        for (int k = 0; k < 4; k++) {
+            snprintf(parts[k], sizeof parts[k], "part%d", k);
+            snprintf(args, sizeof args, "count %s %s", table_opts[i], dirs[k]);
+            assert_int_equal(tt(args, parts[k]), 0);
+        }
+        if (i < 2)
+            snprintf(args, sizeof args, "merge --tables %s/part0.out %s/part1.out %s/part0.out "
+                     "%s/part2.out %s/part3.out", tmpdir, tmpdir, tmpdir, tmpdir, tmpdir);
+        else
+            snprintf(args, sizeof args, "merge --tables %s/part0.out %s/part1.out %s/part2.out "
+                     "%s/part3.out", tmpdir, tmpdir, tmpdir, tmpdir);
+        assert_int_equal(tt(args, "db"), 0);
+        if (!same_file("files.out", "db.out"))
+            fail_msg("merge --tables (count %s) differs from one run", table_opts[i]);
+    }
+    /* a cut table is refused, by line */
+    assert_int_equal(tt("count --top 5 demo-corpus/hollowmere", "cut"), 0);
+    snprintf(args, sizeof args, "merge --tables %s/cut.out", tmpdir);
+    assert_int_equal(tt(args, "bad"), 2);
+    snprintf(p, sizeof p, "%s/bad.err", tmpdir);
+    err = slurp(p, &n);
+    assert_non_null(strstr(err, "cut.out: line 2: the table of"));
+    free(err);
     /* a shard with other counting options */
     snprintf(args, sizeof args, "index -q --stem %s/stem.db demo-corpus/hollowmere", tmpdir);
     assert_int_equal(tt(args, "stem"), 0);

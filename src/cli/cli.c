@@ -359,3 +359,37 @@ oom:
     cli_error("out of memory");
     return 0;
 }
+
+tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
+                              uint64_t top, uint64_t min_count, uint64_t per)
+{
+    tt_term_entry *e = NULL;
+    size_t n = 0;
+    tt_status st = tt_termtable_sorted(t, &e, &n);
+    if (st)
+        return st;
+    uint64_t total = tt_termtable_total(t), cum = 0;
+    size_t shown = 0;
+    for (size_t i = 0; i < n && !st; i++) {
+        cum += e[i].count;
+        if (e[i].count < min_count)
+            break; /* sorted by count: the rest are smaller */
+        if (top && shown >= top)
+            break;
+        shown++;
+        double share = (double)e[i].count / (double)total;
+        /* the last cumulative share is exactly 1: cum == total there */
+        double cum_share = (double)cum / (double)total;
+        st = tt_table_cstr(w, doc);
+        if (!st) st = tt_table_u64(w, i + 1);
+        if (!st) st = tt_table_str(w, e[i].term, e[i].len);
+        if (!st) st = tt_table_u64(w, e[i].count);
+        if (!st) st = tt_table_fixed(w, share, 6);
+        if (!st) st = tt_table_u64(w, cum);
+        if (!st) st = tt_table_fixed(w, cum_share, 6);
+        if (!st && per) st = tt_table_fixed(w, share * (double)per, 4);
+        if (!st) st = tt_table_end_row(w);
+    }
+    tt_free(e);
+    return st;
+}

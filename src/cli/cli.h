@@ -147,6 +147,12 @@ int cli_pipeline_profile(const cli_pipeline *p, tt_buf *out);
 /* Writes buf to out when it holds 1 MiB or more, or always with force;
  * empties buf. TT_EIO with err filled on a write error. */
 tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force);
+/* The rows of a term table (count's terms view) after tt_table_begin:
+ * document rank term count share cum_count cum_share [rate_per_N], by
+ * descending count; top and min_count 0 for all, per 0 for no rate. */
+tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
+                              uint64_t top, uint64_t min_count, uint64_t per);
+
 /* Parses --format tsv|csv|jsonl; prints the error and returns 0 if bad. */
 int cli_parse_format(const char *arg, tt_format *out);
 

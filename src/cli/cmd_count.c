@@ -114,37 +114,8 @@ static tt_status write_terms(const count_ctx *c, tt_buf *out, const char *doc,
                              const tt_termtable *t)
 {
     tt_table_writer w;
-    tt_term_entry *e = NULL;
-    size_t n = 0;
     tt_status st = begin(c, &w, out, 0);
-    if (!st)
-        st = tt_termtable_sorted(t, &e, &n);
-    if (st)
-        return st;
-    uint64_t total = tt_termtable_total(t), cum = 0;
-    size_t shown = 0;
-    for (size_t i = 0; i < n && !st; i++) {
-        cum += e[i].count;
-        if (e[i].count < c->min_count)
-            break; /* sorted by count: the rest are smaller */
-        if (c->top && shown >= c->top)
-            break;
-        shown++;
-        double share = (double)e[i].count / (double)total;
-        /* the last cumulative share is exactly 1: cum == total there */
-        double cum_share = (double)cum / (double)total;
-        st = tt_table_cstr(&w, doc);
-        if (!st) st = tt_table_u64(&w, i + 1);
-        if (!st) st = tt_table_str(&w, e[i].term, e[i].len);
-        if (!st) st = tt_table_u64(&w, e[i].count);
-        if (!st) st = tt_table_fixed(&w, share, 6);
-        if (!st) st = tt_table_u64(&w, cum);
-        if (!st) st = tt_table_fixed(&w, cum_share, 6);
-        if (!st && c->per) st = tt_table_fixed(&w, share * (double)c->per, 4);
-        if (!st) st = tt_table_end_row(&w);
-    }
-    tt_free(e);
-    return st;
+    return st ? st : cli_write_term_rows(&w, doc, t, c->top, c->min_count, c->per);
 }
 
 static tt_status write_classes(const count_ctx *c, tt_buf *out, const char *doc,
