@@ -346,6 +346,51 @@ static void test_kill9(void **state)
     assert_true(same_file("files.out", "db.out"));
 }
 
+/* Readers go on while a run writes: each sees whole files only (a
+ * committed snapshot), and never fails for the writer's sake. */
+static void test_readers_while_writing(void **state)
+{
+    (void)state;
+    char cmd[2048], db[512], args[1024], dir[512];
+    snprintf(cmd, sizeof cmd,
+             "mkdir -p %s/many && for i in $(seq 1 150); do for f in demo-corpus/hollowmere/"
+             "2024-Q*-call-*; do cp $f %s/many/$i-$(basename $f); done; done",
+             tmpdir, tmpdir);
+    assert_int_equal(system(cmd), 0);
+    snprintf(db, sizeof db, "%s/busy.db", tmpdir);
+    snprintf(dir, sizeof dir, "%s/many", tmpdir);
+    /* a first file so that readers have an index to open */
+    snprintf(args, sizeof args, "index -q %s demo-corpus/hollowmere/2024-Q1-call-transcript.txt",
+             db);
+    assert_int_equal(tt(args, "first"), 0);
+    pid_t pid = fork();
+    assert_true(pid >= 0);
+    if (pid == 0) {
+        int devnull = open("/dev/null", O_WRONLY);
+        dup2(devnull, 1);
+        dup2(devnull, 2);
+        execl(tt_test_bin(), tt_test_bin(), "index", "-q", db, dir, (char *)NULL);
+        _exit(127);
+    }
+    int reads = 0, during = 0;
+    for (;;) {
+        int st;
+        pid_t done = waitpid(pid, &st, WNOHANG);
+        snprintf(args, sizeof args, "count --total-only --top 3 --db %s", db);
+        assert_int_equal(tt(args, "reader"), 0);
+        reads++;
+        if (done == pid) {
+            assert_true(WIFEXITED(st) && WEXITSTATUS(st) == 0);
+            break;
+        }
+        during++;
+    }
+    print_message("%d reads while the index was written, all succeeded\n", during);
+    long files = 0;
+    check_integrity(db, &files);
+    assert_int_equal(files, 601);
+}
+
 /* Files that are not an index: refused by name, never written. */
 static void test_not_an_index(void **state)
 {
@@ -626,6 +671,7 @@ int main(void)
         cmocka_unit_test_setup_teardown(test_same_as_files, setup, teardown),
         cmocka_unit_test_setup_teardown(test_incremental, setup, teardown),
         cmocka_unit_test_setup_teardown(test_kill9, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_readers_while_writing, setup, teardown),
         cmocka_unit_test_setup_teardown(test_not_an_index, setup, teardown),
         cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readonly_dir, setup, teardown),
