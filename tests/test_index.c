@@ -346,6 +346,54 @@ static void test_kill9(void **state)
     assert_true(same_file("files.out", "db.out"));
 }
 
+/* The schema is what the README documents (checked with Python's sqlite3
+ * module reading the database termtide wrote). */
+static void test_schema(void **state)
+{
+    (void)state;
+    char args[1024], cmd[4096];
+    snprintf(args, sizeof args, "index -q %s/s.db demo-corpus/hollowmere", tmpdir);
+    assert_int_equal(tt(args, "ix"), 0);
+    /* the script goes in a file: no shell quoting to get wrong */
+    static const char script[] =
+        "import sqlite3, sys\n"
+        "c = sqlite3.connect(sys.argv[1])\n"
+        "want = {\n"
+        " 'meta': 'key value',\n"
+        " 'files': 'id path sha256 size parts_skipped indexed_at',\n"
+        " 'documents': 'id file ord seq name name_rel kind outer_kind encoding type entity period "
+        "form notes bytes words_read numbers stopwords short_words terms_kept overlong sentences "
+        "distinct_terms terms analysis',\n"
+        " 'problems': 'id file ord name name_rel status line offset message skipped',\n"
+        " 'terms': 'id term'}\n"
+        "tables = sorted(r[0] for r in c.execute(\"SELECT name FROM sqlite_master WHERE type = 'table'\"))\n"
+        "assert tables == sorted(want), tables\n"
+        "for t, cols in want.items():\n"
+        "    have = ' '.join(r[1] for r in c.execute('PRAGMA table_info(%s)' % t))\n"
+        "    assert have == cols, (t, have)\n"
+        "meta = dict(c.execute('SELECT key, value FROM meta'))\n"
+        "assert meta['schema_version'] == '1' and 'stem=0' in meta['profile'], meta\n"
+        "assert c.execute('PRAGMA journal_mode').fetchone()[0] == 'wal'\n"
+        "n = c.execute('SELECT count(*), sum(words_read) FROM documents').fetchone()\n"
+        "print(n[0], n[1])\n";
+    char path[512];
+    snprintf(path, sizeof path, "%s/schema.py", tmpdir);
+    FILE *sf = fopen(path, "w");
+    assert_non_null(sf);
+    fputs(script, sf);
+    fclose(sf);
+    snprintf(cmd, sizeof cmd, "%s %s %s/s.db", tt_test_python(), path, tmpdir);
+    FILE *p = popen(cmd, "r");
+    assert_non_null(p);
+    long docs = 0, words = 0;
+    int got = fscanf(p, "%ld %ld", &docs, &words);
+    int st = pclose(p);
+    if (st != 0 || got != 2)
+        fail_msg("the schema differs from the README's (see the assertion above)");
+    assert_int_equal(docs, 19);
+    assert_true(words > 10000);
+}
+
 /* Readers go on while a run writes: each sees whole files only (a
  * committed snapshot), and never fails for the writer's sake. */
 static void test_readers_while_writing(void **state)
@@ -671,6 +719,7 @@ int main(void)
         cmocka_unit_test_setup_teardown(test_same_as_files, setup, teardown),
         cmocka_unit_test_setup_teardown(test_incremental, setup, teardown),
         cmocka_unit_test_setup_teardown(test_kill9, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_schema, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readers_while_writing, setup, teardown),
         cmocka_unit_test_setup_teardown(test_not_an_index, setup, teardown),
         cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
