@@ -266,6 +266,55 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
     t->pos = 0;
     t->at_sentence_start = 1;
     t->overlong = 0;
+    t->prev_off = t->prev_end = (size_t)-1;
+    t->pending_suffix = 0;
+}
+
+/* Abbreviations whose period never ends a sentence: titles, "No.", "U.S.",
+ * "approx.", "e.g.", month names, and a single capital letter (an
+ * initial). And company suffixes ("Inc.", "Corp.", "Ltd."), whose period
+ * ends a sentence unless a lower-case word or a number follows. The lists
+ * are common practice in filings, written for this project. */
+static const char *const never_end[] = {
+    "mr", "mrs", "ms", "dr", "prof", "no", "nos", "vs", "approx", "fig", "figs", "sec", "secs",
+    "st", "jr", "sr", "e.g", "i.e", "u.s", "u.k", "cf", "al", "p", "pp", "vol", "dept", "govt",
+    "jan", "feb", "apr", "jun", "jul", "aug", "sep", "sept", "oct", "nov", "dec", "est", "ref",
+    "art", "para", "ch", "sch", "u.s.a", "n.y", "d.c"
+};
+static const char *const company_suffix[] = { "inc", "corp", "co", "ltd", "llc", "plc", "lp",
+                                              "l.p", "n.a", "s.a", "nv", "n.v", "ag", "etc",
+                                              "bros", "assn" };
+
+static int in_list(const unsigned char *w, size_t n, const char *const *list, size_t count)
+{
+    for (size_t i = 0; i < count; i++) {
+        size_t m = strlen(list[i]);
+        if (m != n)
+            continue;
+        size_t k = 0;
+        while (k < n && (w[k] | (w[k] >= 'A' && w[k] <= 'Z' ? 32 : 0)) == (unsigned char)list[i][k])
+            k++;
+        if (k == n)
+            return 1;
+    }
+    return 0;
+}
+
+/* A segment s[from, to) holding a sentence terminal: a sentence ends
+ * there, unless it is the single period of an abbreviation right after it. */
+static void terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_t to)
+{
+    t->pending_suffix = 0;
+    if (to == from + 1 && s[from] == '.' && t->prev_end == from) {
+        const unsigned char *w = s + t->prev_off;
+        size_t n = t->prev_end - t->prev_off;
+        if ((n == 1 && w[0] >= 'A' && w[0] <= 'Z') ||
+            in_list(w, n, never_end, sizeof never_end / sizeof *never_end))
+            return;
+        if (in_list(w, n, company_suffix, sizeof company_suffix / sizeof *company_suffix))
+            t->pending_suffix = 1;
+    }
+    t->at_sentence_start = 1;
 }
 
 /* The length of a hyphen (U+002D, U+2010 HYPHEN, U+2011 NON-BREAKING
@@ -333,7 +382,7 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
                     q++;
             if (q == len || s[q] < 0x80) {
                 if (tti_wb_stage2[b] & TTI_WB_TERMINAL)
-                    t->at_sentence_start = 1;
+                    terminal(t, s, p, q);
                 p = q;
                 continue;
             }
@@ -347,7 +396,7 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
              * Terminals inside a token segment ("3.5", "e.g") are not
              * sentence ends, which is why only these segments count. */
             if (seen & SEEN_TERMINAL)
-                t->at_sentence_start = 1;
+                terminal(t, s, p, end);
             p = end;
             continue;
         }
@@ -393,7 +442,14 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
         tok->len = p - start;
         tok->kind = (kinds & SEEN_LETTER) ? TT_TOKEN_WORD : TT_TOKEN_NUMBER;
         tok->sentence_start = t->at_sentence_start;
+        /* after "Inc." a lower-case word or a number goes on the sentence */
+        if (tok->sentence_start && t->pending_suffix &&
+            ((s[start] >= 'a' && s[start] <= 'z') || (s[start] >= '0' && s[start] <= '9')))
+            tok->sentence_start = 0;
+        t->pending_suffix = 0;
         t->at_sentence_start = ends_sentence;
+        t->prev_off = start;
+        t->prev_end = p;
         return 1;
     }
     t->pos = len;

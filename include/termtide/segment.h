@@ -34,7 +34,13 @@ typedef struct tt_token {
                             token and holds a Sentence_Terminal character
                             (. ! ? their full-width forms, U+3002 and the
                             other scripts' stops) or U+2026 … . A '.' inside
-                            a token ("3.5", "e.g") is no sentence end. */
+                            a token ("3.5", "e.g") is no sentence end, nor
+                            the period right after an abbreviation of the
+                            filings' usual kind ("No.", "U.S.", "approx.",
+                            "e.g.", "Mr.", a month, an initial "J."), nor
+                            after a company suffix ("Inc.", "Corp.",
+                            "Ltd.") when a lower-case word or a number
+                            follows. */
 } tt_token;
 
 /* Walks one block of text and yields tokens: UAX #29 segments that hold a
@@ -52,6 +58,8 @@ typedef struct tt_tokenizer {
     size_t pos;
     int at_sentence_start;
     size_t overlong;
+    size_t prev_off, prev_end; /* the last token returned, (size_t)-1 none */
+    int pending_suffix;        /* the last terminal followed "Inc." and the like */
 } tt_tokenizer;
 
 void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
