@@ -130,7 +130,7 @@ clean:
 #                   ASan + UBSan (build-san/fuzz/); no clang needed
 #   make fuzz-run   runs each target under libFuzzer (clang) for FUZZ_SECONDS;
 #                   new crashes land in build-fuzz/crashes/
-FUZZ_TARGETS := extract_html wrapper decode count manifest lexicon transcript watchlist
+FUZZ_TARGETS := extract_html wrapper decode count manifest lexicon transcript watchlist cloud
 FUZZ_SECONDS ?= 60
 FUZZ_CC      ?= clang
 FUZZ_B       := build-fuzz

@@ -8,6 +8,7 @@
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
+#include <sys/stat.h>
 #include <unistd.h>
 
 #include "termtide/output.h"
@@ -348,6 +349,20 @@ tt_status tt_outfile_open(tt_outfile *f, const char *path, tt_error *err)
         f->path = f->tmp_path = NULL;
         return tt_error_set(err, TT_EIO, path, -1, "cannot create output file: %s", strerror(e));
     }
+    /* mkstemp makes the file 0600; the result gets the mode a new file would
+     * (0666 less the umask), or the mode of the file it replaces. The umask
+     * is read by setting it back at once (output is opened by the calling
+     * thread, before any worker starts). */
+    struct stat sb;
+    mode_t mode;
+    if (stat(path, &sb) == 0) {
+        mode = sb.st_mode & 07777;
+    } else {
+        mode_t mask = umask(022);
+        umask(mask);
+        mode = 0666 & ~mask;
+    }
+    (void)fchmod(fd, mode);
     f->fp = fdopen(fd, "wb");
     if (!f->fp) {
         int e = errno;

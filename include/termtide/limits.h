@@ -114,4 +114,8 @@
 #define TT_LIMIT_SVG_POINTS 200000
 #define TT_LIMIT_CHART_ROWS 100000
 
+/* Most columns of a table read back for a picture: termtide's widest table
+ * (trend's contingency view, one column per period) has a few hundred. */
+#define TT_LIMIT_TABLE_COLUMNS 4096
+
 #endif

@@ -23,6 +23,8 @@ static const tt_command commands[] = {
     { "index", tt_cmd_index, "count files into a persistent index, reading only what changed", tt_help_index },
     { "merge", tt_cmd_merge, "combine indexes built over parts of an archive into one", tt_help_merge },
     { "search", tt_cmd_search, "where watched language appears: hits in context, counts", tt_help_search },
+    { "cloud", tt_cmd_cloud, "a word cloud of the heaviest terms or of a change, as SVG", tt_help_cloud },
+    { "chart", tt_cmd_chart, "bars, lines, heat map and more as SVG from a saved table", tt_help_chart },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
