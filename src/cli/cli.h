@@ -44,6 +44,8 @@ int tt_cmd_index(int argc, char **argv);
 extern const char tt_help_index[];
 int tt_cmd_merge(int argc, char **argv);
 extern const char tt_help_merge[];
+int tt_cmd_readability(int argc, char **argv);
+extern const char tt_help_readability[];
 int tt_cmd_search(int argc, char **argv);
 extern const char tt_help_search[];
 int tt_cmd_cloud(int argc, char **argv);
