@@ -17,6 +17,7 @@
 
 #include "termtide/batch.h"
 #include "termtide/index.h"
+#include "termtide/sections.h"
 #include "tt_internal.h"
 
 typedef enum { EV_DOC, EV_PROBLEM } event_kind;
@@ -202,6 +203,33 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     tt_doc_stats stats;
     memset(&stats, 0, sizeof stats);
     tt_status st;
+    if (opt->read.n_sections) {
+        /* the document cut to the sections asked for */
+        tt_sections secs;
+        tt_sections_init(&secs);
+        size_t kept = 0;
+        st = tt_sections_find(doc->blocks, opt->read.section_rules, &secs);
+        if (!st)
+            st = tt_blocks_keep_sections(doc->blocks, &secs, opt->read.sections,
+                                         opt->read.n_sections, &kept);
+        tt_sections_release(&secs);
+        if (st || kept == 0) {
+            if (st)
+                tt_error_set(&err, st, doc->name, -1, "%s while finding sections",
+                             tt_status_name(st));
+            else
+                tt_error_set(&err, TT_EINVAL, doc->name, -1, "no section %s%s found",
+                             opt->read.sections[0], opt->read.n_sections > 1 ? " or the others" : "");
+            add_problem(s, doc->name, &err, 1);
+            tt_buf_release(&out);
+            return TT_OK;
+        }
+        if (kept < opt->read.n_sections) {
+            tt_error_set(&err, TT_OK, doc->name, -1, "%zu of the %zu sections asked for found",
+                         kept, opt->read.n_sections);
+            add_problem(s, doc->name, &err, 0);
+        }
+    }
     int analysing = only_analyse(opt);
     if (analysing) {
         st = opt->analyse(opt->ctx, w->astate, doc, &out, &stats);

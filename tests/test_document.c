@@ -253,7 +253,9 @@ static void test_wrapper_types(void **state)
     /* The callback stops the file. */
     memset(&s, 0, sizeof s);
     s.stop_with = TT_EINVAL;
-    tt_read_options opt = { 0, "all" };
+    tt_read_options opt;
+    memset(&opt, 0, sizeof opt);
+    opt.doc_types = "all";
     assert_int_equal(tt_read_documents(FIXTURE, &opt, collect, &s, NULL, &err), TT_EINVAL);
     assert_int_equal(s.n, 1);
 }

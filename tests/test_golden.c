@@ -100,7 +100,8 @@ static void check_library(const gcase *c, const char *dir)
         return; /* only plain per-document term tables */
     tt_count_options o;
     tt_count_options_init(&o);
-    tt_read_options r = { 0, NULL };
+    tt_read_options r;
+    memset(&r, 0, sizeof r);
     if (strstr(c->args, "--stem"))
         o.stem = 1;
     if (strstr(c->args, "--numbers"))

@@ -80,9 +80,17 @@ tt_status tt_wrapper_split(const char *text, size_t len, tt_wrapper *out,
  * Uuencoded parts are never kept. */
 int tt_wrapper_keep(const tt_wrapper_part *part, const char *types);
 
+struct tt_section_rules;
+
 typedef struct tt_read_options {
     int drop_tables;       /* passed to the HTML extractor */
     const char *doc_types; /* see tt_wrapper_keep */
+    /* Sections to keep (sections.h), applied by the batch runner: each
+     * document is cut to these sections; one without any of them is
+     * reported and skipped. n_sections 0: the whole document. */
+    const char *const *sections;
+    size_t n_sections;
+    const struct tt_section_rules *section_rules; /* NULL: built-in structure */
 } tt_read_options;
 
 /* One document handed to the callback. Everything in it is owned by the

@@ -9,6 +9,7 @@
 #include "termtide/alloc.h"
 #include "termtide/filter.h"
 #include "termtide/index.h"
+#include "termtide/sections.h"
 #include "termtide/sha256.h"
 #include "cli.h"
 
@@ -88,6 +89,10 @@ void cli_pipeline_release(cli_pipeline *p)
 {
     tt_index_close(p->index);
     p->index = NULL;
+    tt_section_rules_free(p->section_rules);
+    p->section_rules = NULL;
+    free(p->sections);
+    p->sections = NULL;
     tt_termtable_free(p->stopwords);
     free(p->extra_lists);
     p->stopwords = NULL;
@@ -149,6 +154,19 @@ int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg)
         return 1;
     case 'q': p->quiet = 1; return 1;
     case CLI_OPT_DB: p->db = arg; return 1;
+    case CLI_OPT_SECTION: {
+        const char **l = realloc(p->sections, (p->n_sections + 1) * sizeof *l);
+        if (!l) {
+            cli_error("out of memory");
+            return -1;
+        }
+        p->sections = l;
+        l[p->n_sections++] = arg;
+        p->batch.read.sections = l;
+        p->batch.read.n_sections = p->n_sections;
+        return 1;
+    }
+    case CLI_OPT_SECTION_RULES: p->section_rules_path = arg; return 1;
     }
     return 0;
 }
@@ -182,6 +200,8 @@ int cli_pipeline_finish(cli_pipeline *p)
     }
     p->batch.count.stopwords = tt_termtable_distinct(p->stopwords) ? p->stopwords : NULL;
     p->progress = !p->quiet && isatty(2);
+    if (!cli_pipeline_sections(p))
+        return 0;
     if (p->db) {
         tt_buf profile;
         tt_buf_init(&profile, 0);
@@ -351,6 +371,26 @@ int cli_pipeline_profile(const cli_pipeline *p, tt_buf *out)
     snprintf(line, sizeof line, " tables=%s doc_types=%s",
              p->batch.read.drop_tables ? "drop" : "keep",
              p->batch.read.doc_types ? p->batch.read.doc_types : "default");
+    if (p->n_sections) {
+        if (tt_buf_append(out, line, strlen(line)) || tt_buf_append(out, " sections=", 10))
+            goto oom;
+        for (size_t i = 0; i < p->n_sections; i++)
+            if ((i && tt_buf_putc(out, ',')) ||
+                tt_buf_append(out, p->sections[i], strlen(p->sections[i])))
+                goto oom;
+        line[0] = '\0';
+        if (p->section_rules_path) {
+            char hex[65];
+            tt_error err;
+            tt_error_init(&err);
+            if (tt_sha256_file(p->section_rules_path, hex, &err)) {
+                char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+                cli_error("%s", tt_error_format(&err, msg, sizeof msg));
+                return 0;
+            }
+            snprintf(line, sizeof line, " section_rules=%.16s", hex);
+        }
+    }
     if (tt_buf_append(out, line, strlen(line)) || tt_buf_putc(out, '\0'))
         goto oom;
     out->len--;
@@ -392,4 +432,33 @@ tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_term
     }
     tt_free(e);
     return st;
+}
+
+int cli_pipeline_sections(cli_pipeline *p)
+{
+    if (p->section_rules_path && !p->section_rules) {
+        tt_error err;
+        tt_error_init(&err);
+        if (tt_section_rules_load(p->section_rules_path, &p->section_rules, &err)) {
+            char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+            cli_error("%s", tt_error_format(&err, msg, sizeof msg));
+            return 0;
+        }
+        p->batch.read.section_rules = p->section_rules;
+    }
+    if (p->n_sections && !p->section_rules) {
+        /* a name of ours must be one we know */
+        const char *const *known = tt_section_names();
+        for (size_t i = 0; i < p->n_sections; i++) {
+            int ok = !strncmp(p->sections[i], "item-", 5);
+            for (size_t k = 0; known[k] && !ok; k++)
+                ok = !strcmp(known[k], p->sections[i]);
+            if (!ok) {
+                cli_error("--section: no section named '%s' (termtide sections --names lists "
+                          "them)", p->sections[i]);
+                return 0;
+            }
+        }
+    }
+    return 1;
 }

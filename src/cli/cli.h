@@ -46,6 +46,8 @@ int tt_cmd_merge(int argc, char **argv);
 extern const char tt_help_merge[];
 int tt_cmd_readability(int argc, char **argv);
 extern const char tt_help_readability[];
+int tt_cmd_sections(int argc, char **argv);
+extern const char tt_help_sections[];
 int tt_cmd_search(int argc, char **argv);
 extern const char tt_help_search[];
 int tt_cmd_cloud(int argc, char **argv);
@@ -72,6 +74,10 @@ typedef struct cli_pipeline {
     size_t n_extra;
     int quiet;
     const char *db;   /* --db: the index to read instead of the files */
+    const char **sections;     /* --section NAME... */
+    size_t n_sections;
+    const char *section_rules_path;
+    struct tt_section_rules *section_rules;
     struct tt_index *index;
     int progress;     /* stderr is a terminal and not quiet */
     double started;   /* monotonic seconds */
@@ -83,7 +89,7 @@ typedef struct cli_pipeline {
 enum {
     CLI_OPT_NGRAM = 1000, CLI_OPT_STEM, CLI_OPT_NUMBERS, CLI_OPT_MIN_LENGTH,
     CLI_OPT_STOPWORDS, CLI_OPT_NO_STOPWORDS, CLI_OPT_TABLES, CLI_OPT_DOC_TYPES,
-    CLI_OPT_QUIET, CLI_OPT_DB, CLI_OPT_FIRST_FREE
+    CLI_OPT_QUIET, CLI_OPT_DB, CLI_OPT_SECTION, CLI_OPT_SECTION_RULES, CLI_OPT_FIRST_FREE
 };
 
 #define CLI_PIPELINE_LONGOPTS                                           \
@@ -97,6 +103,8 @@ enum {
     { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },        \
     { "jobs", required_argument, NULL, 'j' },                           \
     { "db", required_argument, NULL, CLI_OPT_DB },                      \
+    { "section", required_argument, NULL, CLI_OPT_SECTION },            \
+    { "section-rules", required_argument, NULL, CLI_OPT_SECTION_RULES }, \
     { "quiet", no_argument, NULL, 'q' }
 
 #define CLI_PIPELINE_HELP                                                          \
@@ -117,6 +125,13 @@ enum {
     "                        default keeps the main documents and skips exhibits\n"     \
     "                        (EX-*), graphics, archives and XML; uuencoded parts are\n" \
     "                        always skipped\n"                                          \
+    "  --section NAME        read only this section of each document (repeatable):\n" \
+    "                        a report's items (risk-factors, mdna, business,\n"    \
+    "                        legal-proceedings, controls, financial-statements, ...;\n" \
+    "                        termtide sections --names lists them) or a transcript's\n" \
+    "                        prepared-remarks and qa; a document without any is\n"   \
+    "                        reported and skipped\n"                                  \
+    "  --section-rules FILE  sections from your own rules (name<TAB>pattern lines)\n" \
     "  --db DB               read the documents from the index DB (termtide index)\n"   \
     "                        instead of the files; the output is the same; the\n"   \
     "                        counting options must be those the index was built with\n" \
@@ -130,6 +145,10 @@ int cli_pipeline_option(cli_pipeline *p, int opt, const char *arg);
 /* Loads the stop-word lists and opens the --db index (checking that it was
  * built with these counting options); prints errors; returns 0 on failure. */
 int cli_pipeline_finish(cli_pipeline *p);
+/* Loads --section-rules and checks --section names (also done by
+ * cli_pipeline_finish, for commands that do not call it); prints errors and
+ * returns 0 on failure. */
+int cli_pipeline_sections(cli_pipeline *p);
 /* Expands the paths (or "-" when none); returns 0 on out-of-memory. */
 int cli_expand_inputs(tt_source_list *list, int argc, char **argv);
 /* Installs progress and problem reporting on p->batch (ctx must be p). */

@@ -32,6 +32,7 @@ const char tt_help_readability[] =
     "  --total               add a row for all documents together ('*')\n"
     "  -f, --format tsv|csv|jsonl   -o, --output FILE   --no-header\n"
     "  -j, --jobs N   --tables keep|drop   --doc-types LIST   -q, --quiet   (as for count)\n"
+    "  --section NAME, --section-rules FILE   only these sections (as for count)\n"
     "\n"
     "termtide measures language; it gives no investment, legal or compliance advice.\n";
 
@@ -46,6 +47,8 @@ static const struct option longopts[] = {
     { "tables", required_argument, NULL, CLI_OPT_TABLES },
     { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },
     { "jobs", required_argument, NULL, 'j' },
+    { "section", required_argument, NULL, CLI_OPT_SECTION },
+    { "section-rules", required_argument, NULL, CLI_OPT_SECTION_RULES },
     { "quiet", no_argument, NULL, 'q' },
     { NULL, 0, NULL, 0 }
 };
@@ -144,6 +147,8 @@ int tt_cmd_readability(int argc, char **argv)
         default: fprintf(stderr, "Try 'termtide help readability'.\n"); goto out;
         }
     }
+    if (!cli_pipeline_sections(&c.pipe))
+        goto out;
     if (!cli_expand_inputs(&inputs, argc - optind, argv + optind))
         goto out;
     if (tt_outfile_open(&c.out, output, &c.err)) {

@@ -95,6 +95,7 @@ const char tt_help_tone[] =
     "                        Pearson's chi-square on that 2x2 table), p two-sided\n"
     "  -f, --format tsv|csv|jsonl   -o, --output FILE   --no-header\n"
     "  -j, --jobs N   --tables keep|drop   --doc-types LIST   -q, --quiet   (as for count)\n"
+    "  --section NAME, --section-rules FILE   only these sections (as for count)\n"
     "  --db DB               the whole-document scores stored by termtide index --tone\n"
     "                        DB (built with the same lexicon and negation rule) instead\n"
     "                        of reading the files; not with --by, --speakers,\n"
@@ -134,6 +135,8 @@ static const struct option longopts[] = {
     { "tables", required_argument, NULL, CLI_OPT_TABLES },
     { "doc-types", required_argument, NULL, CLI_OPT_DOC_TYPES },
     { "jobs", required_argument, NULL, 'j' },
+    { "section", required_argument, NULL, CLI_OPT_SECTION },
+    { "section-rules", required_argument, NULL, CLI_OPT_SECTION_RULES },
     { "db", required_argument, NULL, CLI_OPT_DB },
     { "quiet", no_argument, NULL, 'q' },
     { NULL, 0, NULL, 0 }
@@ -1084,6 +1087,8 @@ int tt_cmd_tone(int argc, char **argv)
     c.nkeys = c.by_part && c.by_role ? TT_TURN_PARTS * TT_TURN_ROLES
               : c.by_part ? TT_TURN_PARTS : c.by_role ? TT_TURN_ROLES : 1;
 
+    if (!cli_pipeline_sections(&c.pipe))
+        goto out;
     if (!cli_tone_setup(&setup, lexicon_path, window, negator_list))
         goto out;
     lex = setup.lex;
@@ -1098,9 +1103,10 @@ int tt_cmd_tone(int argc, char **argv)
         /* scores made at indexing time (index --tone) with this set-up */
         tt_error e;
         tt_error_init(&e);
-        if (c.view == VIEW_SPEAKERS || c.view == VIEW_SENTENCES || c.view == VIEW_LABELS || by) {
-            cli_error("--db holds whole-document scores: --by, --speakers, --sentences and "
-                      "--labels read the files");
+        if (c.view == VIEW_SPEAKERS || c.view == VIEW_SENTENCES || c.view == VIEW_LABELS || by ||
+            c.pipe.n_sections) {
+            cli_error("--db holds whole-document scores: --by, --section, --speakers, "
+                      "--sentences and --labels read the files");
             goto out;
         }
         if (tt_index_open(c.pipe.db, TT_INDEX_READ, &c.pipe.index, &e) ||
