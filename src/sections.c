@@ -319,7 +319,8 @@ static tt_status resolve(const tt_blocks *b, const cands *c, tt_sections *out,
                                      : "; no mention has a body, the last taken")
                               : "");
     }
-    qsort(out->items, out->n, sizeof *out->items, cmp_first);
+    if (out->n)
+        qsort(out->items, out->n, sizeof *out->items, cmp_first);
     for (size_t k = 0; k < out->n; k++)
         out->items[k].end = k + 1 < out->n ? out->items[k + 1].first : b->n;
     return TT_OK;
