@@ -48,6 +48,8 @@ int tt_cmd_readability(int argc, char **argv);
 extern const char tt_help_readability[];
 int tt_cmd_sections(int argc, char **argv);
 extern const char tt_help_sections[];
+int tt_cmd_changes(int argc, char **argv);
+extern const char tt_help_changes[];
 int tt_cmd_search(int argc, char **argv);
 extern const char tt_help_search[];
 int tt_cmd_cloud(int argc, char **argv);

@@ -22,6 +22,7 @@ static const tt_command commands[] = {
     { "tone", tt_cmd_tone, "words by lexicon category per document, with negation", tt_help_tone },
     { "index", tt_cmd_index, "count files into a persistent index, reading only what changed", tt_help_index },
     { "merge", tt_cmd_merge, "combine indexes built over parts of an archive into one", tt_help_merge },
+    { "changes", tt_cmd_changes, "sentences added, removed and reworded between periods", tt_help_changes },
     { "sections", tt_cmd_sections, "each document's sections: report items, transcript parts", tt_help_sections },
     { "readability", tt_cmd_readability, "how hard the prose is to read: Fog, Flesch, Flesch-Kincaid", tt_help_readability },
     { "search", tt_cmd_search, "where watched language appears: hits in context, counts", tt_help_search },
