@@ -235,7 +235,22 @@ tt_status tt_sentence_list_add(tt_sentence_list *l, const tt_blocks *b, const ch
             any = 1;
             if (st)
                 break;
-            st = tt_normalize(&l->norm, t + tok.off, tok.len, &l->tmp);
+            /* letters, digits and hyphens in ASCII fold to lower case alone
+             * (NFKC leaves ASCII as it is); anything else goes through the
+             * normalizer */
+            const char *w = t + tok.off;
+            size_t m = 0;
+            while (m < tok.len && ((w[m] >= 'a' && w[m] <= 'z') || (w[m] >= 'A' && w[m] <= 'Z') ||
+                                   (w[m] >= '0' && w[m] <= '9') || w[m] == '-'))
+                m++;
+            if (m == tok.len) {
+                tt_buf_reset(&l->tmp);
+                st = tt_buf_append(&l->tmp, w, tok.len);
+                for (size_t q = 0; !st && q < l->tmp.len; q++)
+                    l->tmp.data[q] = (char)tti_ascii_lower((unsigned char)l->tmp.data[q]);
+            } else {
+                st = tt_normalize(&l->norm, w, tok.len, &l->tmp);
+            }
             if (st == TT_ELIMIT) {
                 st = TT_OK;
                 continue;
@@ -382,6 +397,36 @@ static size_t word_set(const tt_sentence_list *l, const tt_sentence *s, uint32_t
     return m;
 }
 
+/* Every sentence's word set (sorted distinct ids), once: sets[off[i] ..
+ * off[i] + len[i]). NULL arrays when out of memory. */
+typedef struct sets {
+    uint32_t *ids;
+    size_t *off, *len;
+} sets;
+
+static int sets_build(const tt_sentence_list *l, sets *s)
+{
+    s->ids = tt_malloc((l->n_words ? l->n_words : 1) * sizeof *s->ids);
+    s->off = tt_malloc((l->n ? l->n : 1) * sizeof *s->off);
+    s->len = tt_malloc((l->n ? l->n : 1) * sizeof *s->len);
+    if (!s->ids || !s->off || !s->len)
+        return 0;
+    size_t at = 0;
+    for (size_t i = 0; i < l->n; i++) {
+        s->off[i] = at;
+        s->len[i] = word_set(l, &l->v[i], s->ids + at);
+        at += s->len[i];
+    }
+    return 1;
+}
+
+static void sets_free(sets *s)
+{
+    tt_free(s->ids);
+    tt_free(s->off);
+    tt_free(s->len);
+}
+
 static double jaccard(const uint32_t *a, size_t na, const uint32_t *b, size_t nb)
 {
     size_t i = 0, j = 0, both = 0;
@@ -416,18 +461,12 @@ tt_status tt_align_sentences(const tt_sentence_list *base, const tt_sentence_lis
     size_t *pair_of_target = tt_malloc((nt ? nt : 1) * sizeof *pair_of_target);
     unsigned char *base_used = tt_calloc(nb ? nb : 1, 1);
     double *sim = tt_malloc((nt ? nt : 1) * sizeof *sim);
-    size_t max_words = 1;
-    for (size_t i = 0; i < nb; i++)
-        if (base->v[i].n_words > max_words)
-            max_words = base->v[i].n_words;
-    for (size_t i = 0; i < nt; i++)
-        if (target->v[i].n_words > max_words)
-            max_words = target->v[i].n_words;
-    uint32_t *sa = tt_malloc(max_words * sizeof *sa), *sb = tt_malloc(max_words * sizeof *sb);
+    sets bs = { NULL, NULL, NULL }, ts = { NULL, NULL, NULL };
+    int ok_sets = sets_build(base, &bs) && sets_build(target, &ts);
     size_t *stamp = tt_malloc((nb ? nb : 1) * sizeof *stamp);
     mmap64 exact, shingles;
     int ok_e = mm_init(&exact, nb), ok_s = mm_init(&shingles, base->n_words + nb);
-    if (!pair_of_target || !base_used || !sim || !sa || !sb || !stamp || !ok_e || !ok_s) {
+    if (!pair_of_target || !base_used || !sim || !ok_sets || !stamp || !ok_e || !ok_s) {
         st = TT_ENOMEM;
         goto done;
     }
@@ -465,7 +504,8 @@ tt_status tt_align_sentences(const tt_sentence_list *base, const tt_sentence_lis
             continue;
         const tt_sentence *t = &target->v[j];
         const uint32_t *w = target->words + t->words_off;
-        size_t nta = word_set(target, t, sa);
+        const uint32_t *sa = ts.ids + ts.off[j];
+        size_t nta = ts.len[j];
         double best = -1;
         size_t best_i = SIZE_MAX;
         size_t pairs = t->n_words > 1 ? t->n_words - 1 : 1;
@@ -479,8 +519,7 @@ tt_status tt_align_sentences(const tt_sentence_list *base, const tt_sentence_lis
                 if (base_used[i] || stamp[i] == j)
                     continue;
                 stamp[i] = j;
-                size_t nba = word_set(base, &base->v[i], sb);
-                double jv = jaccard(sa, nta, sb, nba);
+                double jv = jaccard(sa, nta, bs.ids + bs.off[i], bs.len[i]);
                 if (jv > best || (jv == best && i < best_i)) {
                     best = jv;
                     best_i = i;
@@ -510,7 +549,8 @@ tt_status tt_align_sentences(const tt_sentence_list *base, const tt_sentence_lis
             continue;
         }
         out->modified++;
-        size_t nba = word_set(base, &base->v[i], sb);
+        const uint32_t *sb = bs.ids + bs.off[i];
+        size_t nba = bs.len[i];
         const uint32_t *w = target->words + t->words_off;
         for (size_t k = 0; k < t->n_words; k++)
             if (!bsearch(&w[k], sb, nba, sizeof *sb, cmp_u32))
@@ -558,8 +598,8 @@ done:
     tt_free(pair_of_target);
     tt_free(base_used);
     tt_free(sim);
-    tt_free(sa);
-    tt_free(sb);
+    sets_free(&bs);
+    sets_free(&ts);
     tt_free(stamp);
     mm_free(&exact);
     mm_free(&shingles);
