@@ -41,8 +41,8 @@ static void usage(FILE *f)
                "Term-frequency tables and change measures for filings and call transcripts.\n\n"
                "Commands:\n");
     for (size_t i = 0; i < NCOMMANDS; i++)
-        fprintf(f, "  %-10s %s\n", commands[i].name, commands[i].summary);
-    fprintf(f, "  %-10s %s\n", "help", "help on a command: termtide help COMMAND");
+        fprintf(f, "  %-12s %s\n", commands[i].name, commands[i].summary);
+    fprintf(f, "  %-12s %s\n", "help", "help on a command: termtide help COMMAND");
     fprintf(f, "\nOptions:\n  -h, --help     this help\n  -V, --version  version and "
                "library versions\n\n%s",
             caution);
