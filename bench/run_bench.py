@@ -357,6 +357,28 @@ def main():
 
     o = lambda name: os.path.join(out, name)  # noqa: E731
     ttc = f"{q(tt)} count -q"
+    # A 20-rule watch-list for the search rows: two-word phrases of the
+    # corpus (ranks 50 to 69 of its bigrams among words of letters), so every
+    # rule has hits and none is the commonest; written as phrases with \s+.
+    rules = os.path.join(work, "rules20.tsv")
+    alternation = os.path.join(work, "rules20.pat")
+    sample = cor.corpus("text", min(a.mb, 10))
+    sh(f"{q(tt)} count -q --total-only --ngram 2 --no-stopwords -o {o('bigrams.tsv')} {q(sample)}")
+    phrases = []
+    with open(o("bigrams.tsv"), encoding="utf-8") as bf:
+        next(bf)
+        for line in bf:
+            term = line.split("\t")[2]
+            if re.fullmatch(r"[a-z]+ [a-z]+", term):
+                phrases.append(term)
+    phrases = phrases[50:70]
+    with open(rules, "w", encoding="utf-8") as rf, open(alternation, "w", encoding="utf-8") as af:
+        rf.write("# bench watch-list: 20 phrases of the generated corpus\n")
+        for i, ph in enumerate(phrases):
+            w1, w2 = ph.split(" ")
+            rf.write(f"rule{i + 1:02d}\t{w1}\\s+{w2}\n")
+            af.write(f"{w1}\\s+{w2}\n")
+    alt_one = "(?:" + "|".join(f"{p.split(' ')[0]}\\s+{p.split(' ')[1]}" for p in phrases) + ")"
     # key, row name, command, corpus MB, corpus label
     plan = [
         ("cat", "cat (floor)", f"cat {files} > /dev/null", tmb, "text"),
@@ -387,6 +409,30 @@ def main():
          f"{q(tt)} index -q {q(o('index.db'))} {q(text)}", tmb, "text"),
         ("tt-db", "termtide count --db: a table per document from the index",
          f"{ttc} --db {q(o('index.db'))} {q(text)} > {o('tt-db.tsv')}", tmb, "text"),
+        ("tt-search", "**termtide search --counts**, 20 phrase rules (-j 1)",
+         f"{q(tt)} search -q --counts --rules {q(rules)} {q(text)} > {o('tt-search.tsv')}", tmb,
+         "search"),
+        ("tt-search-j2", "termtide search --counts, 20 rules, -j 2",
+         f"{q(tt)} search -q -j 2 --counts --rules {q(rules)} {q(text)} > {o('tt-search-j2.tsv')}",
+         tmb, "search"),
+        ("grep-search", "LC_ALL=C.UTF-8 grep -P -c -i (the 20 phrases as one alternation)",
+         f"LC_ALL=C.UTF-8 grep -P -c -i {q(alt_one)} {files} > {o('grep-search.txt')}", tmb,
+         "search"),
+        ("rg-search", "ripgrep --count-matches -i -f (20 patterns, its default 2 threads)",
+         f"rg --count-matches -i -f {q(alternation)} {q(text)} > {o('rg-search.txt')}", tmb,
+         "search"),
+        ("rg-search-j1", "ripgrep --count-matches -i -f, -j 1",
+         f"rg -j 1 --count-matches -i -f {q(alternation)} {q(text)} > {o('rg-search-j1.txt')}",
+         tmb, "search"),
+        ("py-search", "Python re, the 20 rules, caseless finditer",
+         f"{PY} {q(HERE)}/peers.py search {o('py-search.tsv')} {q(rules)} {files}", tmb,
+         "search"),
+        ("tt-html-read", "termtide search, HTML, one rule that never matches (reading alone)",
+         f"{q(tt)} search -q --counts -e zzqqxxnevermatches {q(html)} > {o('tt-html-read.tsv')};"
+         " test $? -le 1", hmb, "HTML"),
+        ("tt-html-search", "termtide search, HTML, the 20 rules",
+         f"{q(tt)} search -q --counts --rules {q(rules)} {q(html)} > {o('tt-html-search.tsv')}",
+         hmb, "HTML"),
         ("tt-tone", "termtide tone (shipped lexicon, a row per document, -j 1)",
          f"{q(tt)} tone -q {q(text)} > {o('tt-tone.tsv')}", tmb, "text"),
         ("tt-index-tone", "termtide index --tone: a new index with tone scores (-j 1)",
@@ -463,6 +509,25 @@ def main():
                   if r[1].isdigit()) / 1e6 if os.path.exists(o("tt-tone.tsv")) else 0
     checks["tt-index"] = f"database {db_bytes / 1e6:.1f} MB" + \
         (f" = {db_bytes / 1e6 / words_m:.2f} MB per million words" if words_m else "")
+    def search_total(path):
+        for line in open(path, encoding="utf-8"):
+            if line.startswith("(total hits)"):
+                return int(line.rstrip("\n").split("\t")[-1])
+        return -1
+    tt_hits = search_total(o("tt-search.tsv"))
+    py_hits = sum(int(line.split("\t")[1]) for line in open(o("py-search.tsv"), encoding="utf-8"))
+    rg_hits = sum(int(line.rsplit(":", 1)[1]) for line in open(o("rg-search.txt"), encoding="utf-8")
+                  if ":" in line)
+    checks["tt-search"] = f"{tt_hits:,} hits"
+    checks["tt-search-j2"] = f"{search_total(o('tt-search-j2.tsv')):,} hits" + \
+        ("; output identical to -j 1" if same("tt-search.tsv", "tt-search-j2.tsv")
+         else "; OUTPUT DIFFERS FROM -j 1")
+    checks["py-search"] = f"{py_hits:,} hits" + ("; the same as termtide" if py_hits == tt_hits
+                                                 else "; DIFFERS FROM TERMTIDE")
+    checks["rg-search"] = f"{rg_hits:,} hits" + (
+        "; the same as termtide" if rg_hits == tt_hits
+        else " (one pass over all patterns: where two rules hit the same words it counts once)")
+    checks["grep-search"] = "matching lines, not hits"
     tone_db_same = same("tt-tone.tsv", "tt-tone-db.tsv")
     checks["tt-tone-db"] = "output identical to tone on the files" if tone_db_same else \
         "OUTPUT DIFFERS FROM TONE ON THE FILES"
@@ -577,7 +642,8 @@ def main():
     trows = []
     for key, name, cmd, mb, label in plan:
         r = res[key]
-        ref = html_w if label == "HTML" else (main_w if label.startswith("text") else 0)
+        ref = html_w if label == "HTML" else (main_w if label.startswith("text") else
+                                              res["tt-search"]["wall"] if label == "search" else 0)
         trows.append([name, label, f"{r['wall']:.2f}", f"{r['min']:.2f}", f"{r['max']:.2f}",
                       f"{mb / r['wall']:.0f}" if r["wall"] > 0 else "∞", f"{r['cpu']:.2f}",
                       f"{r['rss_mb']:.1f}", ratio_str(r["wall"] / ref) if ref > 0 else "?",
@@ -630,6 +696,16 @@ def main():
     target("compare --consecutive over a 1,000-document, 8-quarter archive streams (peak RSS "
            "< 64 MB)", f"{rss_con:.1f} MB in {res['tt-consecutive']['wall']:.2f} s", rss_con < 64,
            "175 comparisons")
+    s1, s2 = res["tt-search"]["wall"], res["tt-search-j2"]["wall"]
+    r_rg = res["rg-search"]["wall"] / s2
+    target("search -j 2: at least 1/3 of ripgrep's speed on the same 20 rules",
+           f"{r_rg:.2f} of ripgrep's speed", r_rg >= 1 / 3,
+           f"termtide {tmb / s2:.0f} MB/s, ripgrep {tmb / res['rg-search']['wall']:.0f} MB/s")
+    r_grep = res["grep-search"]["wall"] / s1
+    target("search -j 1 faster than grep -P -c", ratio_str(r_grep), r_grep > 1,
+           f"termtide {tmb / s1:.0f} MB/s, grep -P {tmb / res['grep-search']['wall']:.0f} MB/s")
+    r_hs = res["tt-html-search"]["wall"] / res["tt-html-read"]["wall"]
+    target("search on HTML costs ≤ 1.3× reading alone", ratio_str(r_hs), r_hs <= 1.3)
     r_tone = res["tt-tone"]["wall"] / res["tt-docs"]["wall"]
     target("tone adds ≤ 15% to count (a row per document against a table per document)",
            ratio_str(r_tone), r_tone <= 1.15,
