@@ -275,24 +275,34 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
  * initial). And company suffixes ("Inc.", "Corp.", "Ltd."), whose period
  * ends a sentence unless a lower-case word or a number follows. The lists
  * are common practice in filings, written for this project. */
-static const char *const never_end[] = {
-    "mr", "mrs", "ms", "dr", "prof", "no", "nos", "vs", "approx", "fig", "figs", "sec", "secs",
-    "st", "jr", "sr", "e.g", "i.e", "u.s", "u.k", "cf", "al", "p", "pp", "vol", "dept", "govt",
-    "jan", "feb", "apr", "jun", "jul", "aug", "sep", "sept", "oct", "nov", "dec", "est", "ref",
-    "art", "para", "ch", "sch", "u.s.a", "n.y", "d.c"
+typedef struct abbrev {
+    const char *s;
+    unsigned char n;
+} abbrev;
+#define AB(x) { x, sizeof x - 1 }
+static const abbrev never_end[] = {
+    AB("mr"), AB("mrs"), AB("ms"), AB("dr"), AB("prof"), AB("no"), AB("nos"), AB("vs"),
+    AB("approx"), AB("fig"), AB("figs"), AB("sec"), AB("secs"), AB("st"), AB("jr"), AB("sr"),
+    AB("e.g"), AB("i.e"), AB("u.s"), AB("u.k"), AB("cf"), AB("al"), AB("p"), AB("pp"),
+    AB("vol"), AB("dept"), AB("govt"), AB("jan"), AB("feb"), AB("apr"), AB("jun"), AB("jul"),
+    AB("aug"), AB("sep"), AB("sept"), AB("oct"), AB("nov"), AB("dec"), AB("est"), AB("ref"),
+    AB("art"), AB("para"), AB("ch"), AB("sch"), AB("u.s.a"), AB("n.y"), AB("d.c")
 };
-static const char *const company_suffix[] = { "inc", "corp", "co", "ltd", "llc", "plc", "lp",
-                                              "l.p", "n.a", "s.a", "nv", "n.v", "ag", "etc",
-                                              "bros", "assn" };
+static const abbrev company_suffix[] = { AB("inc"), AB("corp"), AB("co"), AB("ltd"), AB("llc"),
+                                         AB("plc"), AB("lp"), AB("l.p"), AB("n.a"), AB("s.a"),
+                                         AB("nv"), AB("n.v"), AB("ag"), AB("etc"), AB("bros"),
+                                         AB("assn") };
+#undef AB
+#define ABBREV_MAX 6 /* the longest entry */
 
-static int in_list(const unsigned char *w, size_t n, const char *const *list, size_t count)
+static int in_list(const unsigned char *w, size_t n, const abbrev *list, size_t count)
 {
+    unsigned char first = (unsigned char)(w[0] | (w[0] >= 'A' && w[0] <= 'Z' ? 32 : 0));
     for (size_t i = 0; i < count; i++) {
-        size_t m = strlen(list[i]);
-        if (m != n)
+        if (list[i].n != n || (unsigned char)list[i].s[0] != first)
             continue;
-        size_t k = 0;
-        while (k < n && (w[k] | (w[k] >= 'A' && w[k] <= 'Z' ? 32 : 0)) == (unsigned char)list[i][k])
+        size_t k = 1;
+        while (k < n && (w[k] | (w[k] >= 'A' && w[k] <= 'Z' ? 32 : 0)) == (unsigned char)list[i].s[k])
             k++;
         if (k == n)
             return 1;
@@ -308,6 +318,10 @@ static void terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_
     if (to == from + 1 && s[from] == '.' && t->prev_end == from) {
         const unsigned char *w = s + t->prev_off;
         size_t n = t->prev_end - t->prev_off;
+        if (n > ABBREV_MAX) {
+            t->at_sentence_start = 1;
+            return;
+        }
         if ((n == 1 && w[0] >= 'A' && w[0] <= 'Z') ||
             in_list(w, n, never_end, sizeof never_end / sizeof *never_end))
             return;
