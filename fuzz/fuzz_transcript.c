@@ -9,9 +9,14 @@
  * lies inside the block; found = 0 means no speakers; the Q&A start, when
  * set, is a block index; each speaker has at least one turn. For every
  * block, the source offset of its first byte is its src_off, and the offset
- * of any byte is within the text and never before the block's start. */
+ * of any byte is within the text and never before the block's start.
+ * Sections (sections.h): each within the blocks, in order, not
+ * overlapping. Changes (changes.h): the document aligned with itself is all
+ * unchanged, with an edit similarity of 1. */
 #include "fuzz_common.h"
 
+#include "termtide/changes.h"
+#include "termtide/sections.h"
 #include "termtide/transcript.h"
 
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
@@ -56,6 +61,30 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             FUZZ_CHECK(o >= first && (size_t)o <= size);
         }
     }
+    tt_sections secs;
+    tt_sections_init(&secs);
+    if (tt_sections_find(&b, NULL, &secs) == TT_OK) {
+        for (size_t i = 0; i < secs.n; i++) {
+            FUZZ_CHECK(secs.items[i].first < secs.items[i].end && secs.items[i].end <= b.n);
+            FUZZ_CHECK(i == 0 || secs.items[i].first >= secs.items[i - 1].end);
+        }
+    }
+    tt_sections_release(&secs);
+    tt_sentence_list *x = tt_sentence_list_new();
+    tt_sentence_list *y = x ? tt_sentence_list_new_sharing(x) : NULL;
+    if (x && y && tt_sentence_list_add(x, &b, (const char *)data, size, 0, 0, "a") == TT_OK &&
+        tt_sentence_list_add(y, &b, (const char *)data, size, 0, 0, "b") == TT_OK) {
+        tt_alignment al;
+        tt_alignment_init(&al);
+        if (tt_align_sentences(x, y, 0.5, &al) == TT_OK) {
+            FUZZ_CHECK(al.unchanged == tt_sentence_list_count(x));
+            FUZZ_CHECK(al.added == 0 && al.removed == 0 && al.modified == 0);
+            FUZZ_CHECK(al.edit_similarity == 1.0);
+        }
+        tt_alignment_release(&al);
+    }
+    tt_sentence_list_free(y);
+    tt_sentence_list_free(x);
     tt_transcript_release(&t);
     tt_blocks_release(&b);
     return 0;
