@@ -139,18 +139,7 @@ static void test_what_counts(void **state)
 
 static char *capture(const char *args, int *status)
 {
-    char cmd[4096];
-    snprintf(cmd, sizeof cmd, "%s %s 2>/dev/null", tt_test_bin(), args);
-    FILE *p = popen(cmd, "r");
-    assert_non_null(p);
-    size_t cap = 1 << 20, n = 0, k;
-    char *out = malloc(cap);
-    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0)
-        n += k;
-    out[n] = '\0';
-    int st = pclose(p);
-    *status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
-    return out;
+    return tt_test_run(args, 0, status);
 }
 
 /* The program: the same rows for any thread count; the total row is the

@@ -9,6 +9,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/wait.h>
 
 #include <cmocka.h>
 
@@ -28,6 +29,33 @@ static inline const char *tt_test_python(void)
 {
     const char *p = getenv("PYTHON");
     return p ? p : "/usr/bin/python3";
+}
+
+/* Runs the program with args (through the shell) and returns what it wrote
+ * to stdout, with stderr too when stderr_too is set, NUL-terminated; the
+ * caller frees it. *status gets the exit status, -1 when killed. */
+static inline char *tt_test_run(const char *args, int stderr_too, int *status)
+{
+    char cmd[8192];
+    snprintf(cmd, sizeof cmd, "%s %s %s", tt_test_bin(), args, stderr_too ? "2>&1" : "2>/dev/null");
+    FILE *p = popen(cmd, "r");
+    assert_non_null(p);
+    size_t cap = 1 << 16, n = 0, k;
+    char *out = malloc(cap);
+    assert_non_null(out);
+    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0) {
+        n += k;
+        if (n + 1 == cap) {
+            char *grown = realloc(out, cap * 2);
+            assert_non_null(grown);
+            out = grown;
+            cap *= 2;
+        }
+    }
+    out[n] = '\0';
+    int st = pclose(p);
+    *status = st != -1 && WIFEXITED(st) ? WEXITSTATUS(st) : -1;
+    return out;
 }
 
 /* A failing allocator for out-of-memory tests: with tt_test_fail_after = k
