@@ -809,7 +809,9 @@ def main():
             lines.append(f"{pct:>6}%  {fn}")
         lines.append("```")
         lines.append("")
-    report = "\n".join(lines) + "\n"
+    # paths relative to the repository: the report is kept in git and says
+    # nothing of the machine's directories
+    report = ("\n".join(lines) + "\n").replace(repo.rstrip("/") + "/", "")
     print(report)
     head = "# termtide benchmark results (newest first)\n\nWritten by `make bench`; see README.md.\n\n"
     old = open(a.results, encoding="utf-8").read() if os.path.exists(a.results) else ""
