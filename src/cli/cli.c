@@ -462,3 +462,37 @@ int cli_pipeline_sections(cli_pipeline *p)
     }
     return 1;
 }
+
+int cli_run_rows(cli_pipeline *p, cli_rows *r, const tt_source_list *inputs,
+                 tt_status (*finish)(void *ctx), void *ctx, const char *cmd)
+{
+    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
+    if (tt_outfile_open(&r->out, r->output, &r->err)) {
+        cli_error("%s", tt_error_format(&r->err, msg, sizeof msg));
+        return TT_EXIT_TROUBLE;
+    }
+    tt_table_writer w;
+    if (r->header && tt_table_begin(&w, r->format, &r->buf, r->cols, r->ncols, 1)) {
+        tt_outfile_abort(&r->out);
+        cli_error("out of memory");
+        return TT_EXIT_TROUBLE;
+    }
+    cli_pipeline_hooks(p);
+    tt_batch_summary sum;
+    tt_error err;
+    tt_error_init(&err);
+    tt_status st = tt_batch_run(inputs, &p->batch, &sum, &err);
+    if (!st && finish)
+        st = finish(ctx);
+    if (!st)
+        st = cli_flush(&r->out, &r->buf, &r->err, 1);
+    if (!st)
+        st = tt_outfile_commit(&r->out, &r->err);
+    if (st) {
+        tt_outfile_abort(&r->out);
+        cli_error("%s", tt_error_format(r->err.status ? &r->err : &err, msg, sizeof msg));
+        return TT_EXIT_TROUBLE;
+    }
+    cli_reading_summary(p, cmd, &sum, NULL);
+    return sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
+}

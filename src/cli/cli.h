@@ -176,6 +176,25 @@ tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force);
 tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
                               uint64_t top, uint64_t min_count, uint64_t per);
 
+/* The run of a command whose rows an analysis writes (readability,
+ * sections): opens the output (atomic), writes the header unless
+ * header is 0, runs the batch (p->batch's hooks set by the caller; their
+ * rows go to *buf), lets finish(ctx) add rows after it (may be NULL),
+ * flushes, commits and prints the summary. Prints any error. Returns the
+ * exit status. */
+typedef struct cli_rows {
+    tt_format format;
+    int header;
+    const char *output;
+    const char *const *cols;
+    size_t ncols;
+    tt_buf buf;
+    tt_outfile out;
+    tt_error err;
+} cli_rows;
+int cli_run_rows(cli_pipeline *p, cli_rows *r, const tt_source_list *inputs,
+                 tt_status (*finish)(void *ctx), void *ctx, const char *cmd);
+
 /* Parses --format tsv|csv|jsonl; prints the error and returns 0 if bad. */
 int cli_parse_format(const char *arg, tt_format *out);
 

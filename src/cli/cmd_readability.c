@@ -60,11 +60,9 @@ static const char *const cols[] = { "document", "sentences", "words", "syllables
 
 typedef struct read_ctx {
     cli_pipeline pipe; /* first: the pipeline hooks use the batch ctx as this */
-    tt_format format;
+    cli_rows rows;
     tt_readability all;
-    tt_buf buf;
-    tt_outfile out;
-    tt_error err;
+    int total;         /* --total: a row for all documents after the run */
 } read_ctx;
 
 /* In a worker: the document's counts, as four numbers. */
@@ -85,7 +83,7 @@ static tt_status row(read_ctx *c, const char *name, const tt_readability *r)
     tt_readability_scores s;
     tt_readability_scores_of(r, &s);
     tt_table_writer w;
-    tt_status st = tt_table_begin(&w, c->format, &c->buf, cols, 11, 0);
+    tt_status st = tt_table_begin(&w, c->rows.format, &c->rows.buf, cols, 11, 0);
     if (!st) st = tt_table_cstr(&w, name);
     if (!st) st = tt_table_u64(&w, r->sentences);
     if (!st) st = tt_table_u64(&w, r->words);
@@ -98,7 +96,7 @@ static tt_status row(read_ctx *c, const char *name, const tt_readability *r)
     if (!st) st = tt_table_fixed(&w, s.flesch, 2);
     if (!st) st = tt_table_fixed(&w, s.flesch_kincaid, 2);
     if (!st) st = tt_table_end_row(&w);
-    return st ? st : cli_flush(&c->out, &c->buf, &c->err, 0);
+    return st ? st : cli_flush(&c->rows.out, &c->rows.buf, &c->rows.err, 0);
 }
 
 static tt_status on_document(void *ctx, const tt_doc_result *r)
@@ -115,19 +113,25 @@ static tt_status on_document(void *ctx, const tt_doc_result *r)
     return row(c, r->name, &d);
 }
 
+/* After the run: the row for all documents, with --total. */
+static tt_status total_row(void *ctx)
+{
+    read_ctx *c = ctx;
+    return c->total ? row(c, "*", &c->all) : TT_OK;
+}
+
 int tt_cmd_readability(int argc, char **argv)
 {
     read_ctx c;
     memset(&c, 0, sizeof c);
     cli_pipeline_init(&c.pipe);
-    c.format = TT_FORMAT_TSV;
-    tt_buf_init(&c.buf, 0);
-    tt_error_init(&c.err);
-    int opt, rc = TT_EXIT_TROUBLE, total = 0, header = 1, out_open = 0;
+    c.rows.format = TT_FORMAT_TSV;
+    tt_buf_init(&c.rows.buf, 0);
+    tt_error_init(&c.rows.err);
+    int opt, rc = TT_EXIT_TROUBLE, total = 0, header = 1;
     const char *output = NULL;
     tt_source_list inputs;
     tt_source_list_init(&inputs);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
     optind = 1;
     while ((opt = getopt_long(argc, argv, "f:o:j:qh", longopts, NULL)) != -1) {
         int handled = cli_pipeline_option(&c.pipe, opt, optarg);
@@ -139,7 +143,7 @@ int tt_cmd_readability(int argc, char **argv)
         case OPT_TOTAL: total = 1; break;
         case OPT_NO_HEADER: header = 0; break;
         case 'f':
-            if (!cli_parse_format(optarg, &c.format))
+            if (!cli_parse_format(optarg, &c.rows.format))
                 goto out;
             break;
         case 'o': output = optarg; break;
@@ -151,41 +155,17 @@ int tt_cmd_readability(int argc, char **argv)
         goto out;
     if (!cli_expand_inputs(&inputs, argc - optind, argv + optind))
         goto out;
-    if (tt_outfile_open(&c.out, output, &c.err)) {
-        cli_error("%s", tt_error_format(&c.err, msg, sizeof msg));
-        goto out;
-    }
-    out_open = 1;
-    tt_table_writer w;
-    if (header && tt_table_begin(&w, c.format, &c.buf, cols, 11, 1)) {
-        cli_error("out of memory");
-        goto out;
-    }
-    cli_pipeline_hooks(&c.pipe);
+    c.rows.header = header;
+    c.rows.output = output;
+    c.rows.cols = cols;
+    c.rows.ncols = 11;
+    c.total = total;
     c.pipe.batch.analyse = analyse;
     c.pipe.batch.on_document = on_document;
     c.pipe.batch.ctx = &c;
-    tt_batch_summary sum;
-    tt_error err;
-    tt_error_init(&err);
-    tt_status st = tt_batch_run(&inputs, &c.pipe.batch, &sum, &err);
-    if (!st && total)
-        st = row(&c, "*", &c.all);
-    if (!st)
-        st = cli_flush(&c.out, &c.buf, &c.err, 1);
-    if (!st)
-        st = tt_outfile_commit(&c.out, &c.err);
-    if (st) {
-        cli_error("%s", tt_error_format(c.err.status ? &c.err : &err, msg, sizeof msg));
-        goto out;
-    }
-    out_open = 0;
-    cli_reading_summary(&c.pipe, "readability", &sum, NULL);
-    rc = sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
+    rc = cli_run_rows(&c.pipe, &c.rows, &inputs, total_row, &c, "readability");
 out:
-    if (out_open)
-        tt_outfile_abort(&c.out);
-    tt_buf_release(&c.buf);
+    tt_buf_release(&c.rows.buf);
     tt_source_list_release(&inputs);
     cli_pipeline_release(&c.pipe);
     return rc;

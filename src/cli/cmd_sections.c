@@ -53,10 +53,7 @@ static const char *const cols[] = { "document", "form", "section", "item", "offs
 
 typedef struct sec_ctx {
     cli_pipeline pipe; /* first: the pipeline hooks use the batch ctx as this */
-    tt_format format;
-    tt_buf buf;
-    tt_outfile out;
-    tt_error err;
+    cli_rows rows;
 } sec_ctx;
 
 static uint64_t words_of(const tt_blocks *b, size_t from, size_t to)
@@ -87,7 +84,7 @@ static tt_status analyse(void *vctx, void *state, const tt_document *doc, tt_buf
         long long off = tt_blocks_source_offset(doc->blocks, x->first, 0, doc->raw, doc->raw_len,
                                                 doc->kind == TT_KIND_HTML);
         tt_table_writer w;
-        st = tt_table_begin(&w, c->format, out, cols, 7, 0);
+        st = tt_table_begin(&w, c->rows.format, out, cols, 7, 0);
         if (!st) st = tt_table_cstr(&w, doc->name);
         if (!st) st = tt_table_cstr(&w, s.form);
         if (!st) st = tt_table_cstr(&w, x->name);
@@ -100,7 +97,7 @@ static tt_status analyse(void *vctx, void *state, const tt_document *doc, tt_buf
     }
     if (!st && s.n == 0) {
         tt_table_writer w;
-        st = tt_table_begin(&w, c->format, out, cols, 7, 0);
+        st = tt_table_begin(&w, c->rows.format, out, cols, 7, 0);
         if (!st) st = tt_table_cstr(&w, doc->name);
         if (!st) st = tt_table_cstr(&w, "none");
         if (!st) st = tt_table_cstr(&w, "");
@@ -117,8 +114,8 @@ static tt_status analyse(void *vctx, void *state, const tt_document *doc, tt_buf
 static tt_status on_document(void *ctx, const tt_doc_result *r)
 {
     sec_ctx *c = ctx;
-    tt_status st = tt_buf_append(&c->buf, r->prepared, r->prepared_len);
-    return st ? st : cli_flush(&c->out, &c->buf, &c->err, 0);
+    tt_status st = tt_buf_append(&c->rows.buf, r->prepared, r->prepared_len);
+    return st ? st : cli_flush(&c->rows.out, &c->rows.buf, &c->rows.err, 0);
 }
 
 int tt_cmd_sections(int argc, char **argv)
@@ -126,14 +123,13 @@ int tt_cmd_sections(int argc, char **argv)
     sec_ctx c;
     memset(&c, 0, sizeof c);
     cli_pipeline_init(&c.pipe);
-    c.format = TT_FORMAT_TSV;
-    tt_buf_init(&c.buf, 0);
-    tt_error_init(&c.err);
-    int opt, rc = TT_EXIT_TROUBLE, header = 1, out_open = 0;
+    c.rows.format = TT_FORMAT_TSV;
+    tt_buf_init(&c.rows.buf, 0);
+    tt_error_init(&c.rows.err);
+    int opt, rc = TT_EXIT_TROUBLE, header = 1;
     const char *output = NULL;
     tt_source_list inputs;
     tt_source_list_init(&inputs);
-    char msg[TT_ERROR_FILE_MAX + TT_ERROR_MSG_MAX + 64];
     optind = 1;
     while ((opt = getopt_long(argc, argv, "f:o:j:qh", longopts, NULL)) != -1) {
         int handled = cli_pipeline_option(&c.pipe, opt, optarg);
@@ -149,7 +145,7 @@ int tt_cmd_sections(int argc, char **argv)
             goto out;
         case OPT_NO_HEADER: header = 0; break;
         case 'f':
-            if (!cli_parse_format(optarg, &c.format))
+            if (!cli_parse_format(optarg, &c.rows.format))
                 goto out;
             break;
         case 'o': output = optarg; break;
@@ -160,39 +156,16 @@ int tt_cmd_sections(int argc, char **argv)
     if (!cli_pipeline_sections(&c.pipe) ||
         !cli_expand_inputs(&inputs, argc - optind, argv + optind))
         goto out;
-    if (tt_outfile_open(&c.out, output, &c.err)) {
-        cli_error("%s", tt_error_format(&c.err, msg, sizeof msg));
-        goto out;
-    }
-    out_open = 1;
-    tt_table_writer w;
-    if (header && tt_table_begin(&w, c.format, &c.buf, cols, 7, 1)) {
-        cli_error("out of memory");
-        goto out;
-    }
-    cli_pipeline_hooks(&c.pipe);
+    c.rows.header = header;
+    c.rows.output = output;
+    c.rows.cols = cols;
+    c.rows.ncols = 7;
     c.pipe.batch.analyse = analyse;
     c.pipe.batch.on_document = on_document;
     c.pipe.batch.ctx = &c;
-    tt_batch_summary sum;
-    tt_error err;
-    tt_error_init(&err);
-    tt_status st = tt_batch_run(&inputs, &c.pipe.batch, &sum, &err);
-    if (!st)
-        st = cli_flush(&c.out, &c.buf, &c.err, 1);
-    if (!st)
-        st = tt_outfile_commit(&c.out, &c.err);
-    if (st) {
-        cli_error("%s", tt_error_format(c.err.status ? &c.err : &err, msg, sizeof msg));
-        goto out;
-    }
-    out_open = 0;
-    cli_reading_summary(&c.pipe, "sections", &sum, NULL);
-    rc = sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
+    rc = cli_run_rows(&c.pipe, &c.rows, &inputs, NULL, NULL, "sections");
 out:
-    if (out_open)
-        tt_outfile_abort(&c.out);
-    tt_buf_release(&c.buf);
+    tt_buf_release(&c.rows.buf);
     tt_source_list_release(&inputs);
     cli_pipeline_release(&c.pipe);
     return rc;
