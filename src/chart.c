@@ -720,6 +720,12 @@ static void marker(cv *c, int shape, double x, double y, const char *colr)
     }
 }
 
+/* What a value of a lines or heat-map chart is. */
+static const char *unit_of(const tt_chart_options *o)
+{
+    return o->unit && o->unit[0] ? o->unit : "rate per 10,000 words";
+}
+
 static tt_status draw_lines(cv *c, const tt_tsv *t, const char *src, tt_error *err)
 {
     const tt_chart_options *o = c->o;
@@ -735,8 +741,8 @@ static tt_status draw_lines(cv *c, const tt_tsv *t, const char *src, tt_error *e
     for (size_t i = 0; i < g.terms.n * g.periods.n; i++)
         if (isfinite(g.v[i]) && g.v[i] > vmax) vmax = g.v[i];
     char sub[512];
-    snprintf(sub, sizeof sub, "%s%s%zu terms across %zu periods, rate per 10,000 words%s",
-             g.entity ? g.entity : "", g.entity ? ": " : "", g.terms.n, g.present,
+    snprintf(sub, sizeof sub, "%s%s%zu terms across %zu periods, %s%s",
+             g.entity ? g.entity : "", g.entity ? ": " : "", g.terms.n, g.present, unit_of(o),
              g.present < g.periods.n ? "; dashed across periods without documents" : "");
     frame_begin(c, o->title ? o->title : "Terms across periods", sub,
                 "Line chart drawn by termtide from a trend table (rates): one line and marker "
@@ -753,7 +759,7 @@ static tt_status draw_lines(cv *c, const tt_tsv *t, const char *src, tt_error *e
     c->pw = o->width - c->px - legw - 60;
     c->ph = o->height - c->py - 78;
     double t0, t1;
-    y_axis(c, 0, vmax, "rate per 10,000 words", &t0, &t1);
+    y_axis(c, 0, vmax, unit_of(o), &t0, &t1);
     x_categories(c, g.periods.v, g.periods.n, "period");
     double slot = c->pw / (double)g.periods.n;
     for (size_t i = 0; i < g.terms.n; i++) {
@@ -843,8 +849,8 @@ static tt_status draw_heatmap(cv *c, const tt_tsv *t, const char *src, tt_error 
     if (need < o2.height) o2.height = (int)need;
     c->o = o = &o2;
     char sub[512];
-    snprintf(sub, sizeof sub, "%s%s%zu terms by %zu periods, rate per 10,000 words%s",
-             g.entity ? g.entity : "", g.entity ? ": " : "", g.terms.n, g.present,
+    snprintf(sub, sizeof sub, "%s%s%zu terms by %zu periods, %s%s",
+             g.entity ? g.entity : "", g.entity ? ": " : "", g.terms.n, g.present, unit_of(o),
              g.present < g.periods.n ? "; hatched: no documents" : "");
     frame_begin(c, o->title ? o->title : "Heat map of terms by period", sub,
                 "Heat map drawn by termtide from a trend table (rates): darker is a higher rate; "
@@ -910,7 +916,7 @@ static tt_status draw_heatmap(cv *c, const tt_tsv *t, const char *src, tt_error 
             y, SOFT);
         label(c, nb, 10, sx + 21, y + 3.5, 0, 0, SOFT, 0);
     }
-    label(c, "rate per 10,000 words", 10, sx + 48, sy + sh / 2, 1, 1, SOFT, sh);
+    label(c, unit_of(o), 10, sx + 48, sy + sh / 2, 1, 1, SOFT, sh);
     frame_end(c);
     grid2_release(&g);
     return c->st;

@@ -185,6 +185,7 @@ tt_status tt_compare_tables(const tt_termtable *base, const tt_termtable *target
         opt->sort == TT_SORT_LOG_RATIO ? cmp_log_ratio
         : opt->sort == TT_SORT_CHANGE  ? cmp_change
                                        : cmp_g2;
-    qsort(out->rows, out->n, sizeof *out->rows, cmp);
+    if (out->n) /* rows is NULL when no term passed --min-count */
+        qsort(out->rows, out->n, sizeof *out->rows, cmp);
     return TT_OK;
 }

@@ -42,6 +42,9 @@ typedef struct tt_chart_options {
     const char *y_term;      /* scatter: the y term */
     double max_q;            /* bars: q at or below this is significant (0.05) */
     int relative;            /* histogram etc.: shares instead of numbers */
+    const char *unit;        /* lines, heat map: what a value is (default "rate
+                                per 10,000 words"; e.g. "per 1,000 words" for a
+                                tone table reshaped to term, period, rate) */
 } tt_chart_options;
 
 void tt_chart_options_init(tt_chart_options *o);

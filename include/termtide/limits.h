@@ -118,4 +118,13 @@
  * (trend's contingency view, one column per period) has a few hundred. */
 #define TT_LIMIT_TABLE_COLUMNS 4096
 
+/* Largest report page: the pictures and tables of an archive's every
+ * entity and period; a page past this no longer opens in a browser. */
+#define TT_LIMIT_REPORT_BYTES ((size_t)512 << 20)
+
+/* Most rows of one table on a report page (watch-list hits, sentences):
+ * the rest stay in the tables behind the report, and the page says how
+ * many were left out. */
+#define TT_LIMIT_REPORT_ROWS 2000
+
 #endif

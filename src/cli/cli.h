@@ -56,6 +56,8 @@ int tt_cmd_cloud(int argc, char **argv);
 extern const char tt_help_cloud[];
 int tt_cmd_chart(int argc, char **argv);
 extern const char tt_help_chart[];
+int tt_cmd_report(int argc, char **argv);
+extern const char tt_help_report[];
 
 /* The program name for messages. */
 extern const char *tt_prog;

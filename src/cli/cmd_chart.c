@@ -54,6 +54,8 @@ const char tt_help_chart[] =
     "                        numbers of terms\n"
     "  --width PX, --height PX  the canvas (900 x 560)\n"
     "  --title TEXT          the chart's title\n"
+    "  --unit TEXT           lines, heatmap: what the rate column holds, for the axis\n"
+    "                        (default 'rate per 10,000 words')\n"
     "  --font FILE           the font that measures and draws labels (default DejaVu\n"
     "                        Sans, " TT_FONT_DEFAULT ")\n"
     "  --text                <text> labels instead of outline paths\n"
@@ -65,7 +67,7 @@ const char tt_help_chart[] =
     "termtide measures language; it gives no investment, legal or compliance advice.\n";
 
 enum { OPT_FROM = 1000, OPT_VALUE, OPT_PAIR, OPT_ENTITY, OPT_DOCUMENT, OPT_TERM, OPT_TERM2,
-       OPT_TOP, OPT_MAX_Q, OPT_RELATIVE, OPT_WIDTH, OPT_HEIGHT, OPT_TITLE, OPT_FONT, OPT_TEXT };
+       OPT_TOP, OPT_MAX_Q, OPT_RELATIVE, OPT_WIDTH, OPT_HEIGHT, OPT_TITLE, OPT_FONT, OPT_TEXT, OPT_UNIT };
 
 static const struct option longopts[] = {
     { "from", required_argument, NULL, OPT_FROM },
@@ -81,6 +83,7 @@ static const struct option longopts[] = {
     { "width", required_argument, NULL, OPT_WIDTH },
     { "height", required_argument, NULL, OPT_HEIGHT },
     { "title", required_argument, NULL, OPT_TITLE },
+    { "unit", required_argument, NULL, OPT_UNIT },
     { "font", required_argument, NULL, OPT_FONT },
     { "text", no_argument, NULL, OPT_TEXT },
     { "output", required_argument, NULL, 'o' },
@@ -140,6 +143,7 @@ int tt_cmd_chart(int argc, char **argv)
             o.height = (int)v;
             break;
         case OPT_TITLE: o.title = optarg; break;
+        case OPT_UNIT: o.unit = optarg; break;
         case OPT_FONT: font_path = optarg; break;
         case OPT_TEXT: o.text = 1; break;
         case 'o': output = optarg; break;

@@ -28,6 +28,8 @@ static const tt_command commands[] = {
     { "search", tt_cmd_search, "where watched language appears: hits in context, counts", tt_help_search },
     { "cloud", tt_cmd_cloud, "a word cloud of the heaviest terms or of a change, as SVG", tt_help_cloud },
     { "chart", tt_cmd_chart, "bars, lines, heat map and more as SVG from a saved table", tt_help_chart },
+    { "report", tt_cmd_report, "one self-contained HTML page: overview, movers, pictures, hits",
+      tt_help_report },
 };
 #define NCOMMANDS (sizeof commands / sizeof commands[0])
 
