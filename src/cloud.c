@@ -353,9 +353,13 @@ static tt_status spiral_more(spiral *s)
     return TT_OK;
 }
 
-/* One layout pass at a size factor. Returns the number of unplaced words. */
+/* One layout pass at a size factor. Returns the number of unplaced words.
+ * With stop_at_miss the pass ends at the first word that does not fit (it
+ * is a --shrink pass that will be redone smaller: the words after it could
+ * not change that), so a failed pass costs one walk of the whole spiral, not
+ * one per word that does not fit; the pass that is kept is always whole. */
 static tt_status layout_pass(tt_cloud *c, tt_font *f, const tt_cloud_options *o, double factor,
-                             size_t *unplaced)
+                             int stop_at_miss, size_t *unplaced)
 {
     grid g;
     g.w = c->width;
@@ -436,6 +440,8 @@ static tt_status layout_pass(tt_cloud *c, tt_font *f, const tt_cloud_options *o,
         if (!w->placed)
             missed++;
         free_bits(&b);
+        if (missed && stop_at_miss)
+            break;
     }
     tt_font_mask_release(&m);
     tt_free(g.bits);
@@ -464,14 +470,16 @@ tt_status tt_cloud_layout(tt_cloud *c, tt_font *f, const tt_cloud_options *o, tt
     double factor = 1;
     for (;;) {
         size_t missed = 0;
-        tt_status st = layout_pass(c, f, o, factor, &missed);
+        /* a --shrink pass that may be redone can stop at its first miss */
+        int redo_possible = o->shrink && o->max_size * factor * 0.9 >= 1;
+        tt_status st = layout_pass(c, f, o, factor, redo_possible, &missed);
         if (st == TT_ELIMIT)
             return tt_error_set(err, st, NULL, -1, "a word is too large to set at this size");
         if (st)
             return tt_error_set(err, st, NULL, -1, "word cloud layout: %s", tt_status_name(st));
         c->unplaced = missed;
         c->factor = factor;
-        if (!missed || !o->shrink || o->max_size * factor * 0.9 < 1)
+        if (!missed || !redo_possible)
             return TT_OK;
         factor *= 0.9;
     }
