@@ -33,6 +33,8 @@ struct tt_sentence_list {
     size_t n_words, cap_words;
     char **docs;
     size_t n_docs;
+    char **sections;        /* section names, each once */
+    size_t n_sections;
     tt_normalizer norm;
     tt_buf tmp;
 };
@@ -85,6 +87,9 @@ void tt_sentence_list_reset(tt_sentence_list *l)
     for (size_t i = 0; i < l->n_docs; i++)
         tt_free(l->docs[i]);
     l->n_docs = 0;
+    for (size_t i = 0; i < l->n_sections; i++)
+        tt_free(l->sections[i]);
+    l->n_sections = 0;
 }
 
 void tt_sentence_list_free(tt_sentence_list *l)
@@ -93,6 +98,7 @@ void tt_sentence_list_free(tt_sentence_list *l)
         return;
     tt_sentence_list_reset(l);
     tt_free(l->docs);
+    tt_free(l->sections);
     tt_free(l->v);
     tt_free(l->words);
     tt_buf_release(&l->text);
@@ -201,8 +207,44 @@ static tt_status close_sentence(tt_sentence_list *l, const tt_blocks *b, size_t 
     s->words_off = first;
     s->n_words = l->n_words - first;
     s->hash = seq_hash(l->words + first, s->n_words);
+    s->block_off = b->items[blk].off;
+    s->section = 0;
     l->n++;
     return TT_OK;
+}
+
+tt_status tt_sentence_list_label(tt_sentence_list *l, const tt_text_range *r, size_t n)
+{
+    if (!l->n_docs)
+        return TT_OK;
+    size_t doc = l->n_docs - 1;
+    for (size_t i = l->n; i-- > 0 && l->v[i].doc == doc;) {
+        tt_sentence *s = &l->v[i];
+        size_t k = 0;
+        while (k < n && !(r[k].start <= s->block_off && s->block_off < r[k].end))
+            k++;
+        if (k == n)
+            continue;
+        size_t id = 0;
+        while (id < l->n_sections && strcmp(l->sections[id], r[k].name))
+            id++;
+        if (id == l->n_sections) {
+            char **x = tt_reallocarray(l->sections, l->n_sections + 1, sizeof *x);
+            if (!x)
+                return TT_ENOMEM;
+            l->sections = x;
+            if (!(x[id] = tt_strdup(r[k].name)))
+                return TT_ENOMEM;
+            l->n_sections++;
+        }
+        s->section = id + 1;
+    }
+    return TT_OK;
+}
+
+const char *tt_sentence_section(const tt_sentence_list *l, const tt_sentence *s)
+{
+    return s->section && s->section <= l->n_sections ? l->sections[s->section - 1] : "";
 }
 
 tt_status tt_sentence_list_add(tt_sentence_list *l, const tt_blocks *b, const char *raw,

@@ -172,12 +172,68 @@ static void test_demo_story(void **state)
     free(out);
 }
 
+/* Each sentence carries its section (found on the whole document), and
+ * the rows of a pair are grouped by section: once the rows leave a
+ * section they never come back to it. The going-concern sentence FY2023 ->
+ * FY2024 is added in the risk factors. (The sections themselves are checked
+ * in test_sections.) */
+static void test_sentences_grouped_by_section(void **state)
+{
+    (void)state;
+    int st;
+    char *out = capture("changes -q --manifest demo-corpus/manifest.tsv --kinds annual-report "
+                        "--entity hollowmere --consecutive --show sentences",
+                        &st);
+    assert_int_equal(st, 0);
+    char seen[64][64];
+    size_t nseen = 0;
+    char prev[64] = "", pair[64] = "";
+    int risk_going = 0, rows = 0;
+    for (char *line = strchr(out, '\n') + 1, *end; (end = strchr(line, '\n')); line = end + 1) {
+        *end = '\0';
+        /* entity base target change similarity section ... */
+        char *f[13];
+        size_t nf = 0;
+        for (char *p = line; nf < 13; nf++) {
+            f[nf] = p;
+            char *tab = strchr(p, '\t');
+            if (!tab)
+                break;
+            *tab = '\0';
+            p = tab + 1;
+        }
+        assert_true(nf >= 10);
+        rows++;
+        char thispair[64];
+        snprintf(thispair, sizeof thispair, "%s>%s", f[1], f[2]);
+        if (strcmp(thispair, pair)) {
+            snprintf(pair, sizeof pair, "%s", thispair);
+            nseen = 0;
+            prev[0] = '\1';
+        }
+        if (strcmp(prev, f[5])) {
+            for (size_t k = 0; k < nseen; k++)
+                assert_string_not_equal(seen[k], f[5]); /* came back: not grouped */
+            assert_true(nseen < 64);
+            snprintf(seen[nseen++], sizeof seen[0], "%s", f[5]);
+            snprintf(prev, sizeof prev, "%s", f[5]);
+        }
+        if (!strcmp(f[1], "FY2023") && !strcmp(f[3], "added") && !strcmp(f[5], "risk-factors") &&
+            strstr(f[10], "going concern"))
+            risk_going++;
+    }
+    assert_true(rows > 100);
+    assert_true(risk_going >= 1);
+    free(out);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_known_pairs),
         cmocka_unit_test(test_document_similarity),
         cmocka_unit_test(test_demo_story),
+        cmocka_unit_test(test_sentences_grouped_by_section),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

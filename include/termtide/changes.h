@@ -39,6 +39,8 @@ typedef struct tt_sentence {
     size_t doc;             /* index in the list's documents */
     size_t words_off, n_words; /* the word ids, in the list's words */
     uint64_t hash;          /* of the word sequence */
+    size_t block_off;       /* where its block starts in the document's block text */
+    size_t section;         /* 1 + index in the list's section names; 0: none */
 } tt_sentence;
 
 typedef struct tt_sentence_list tt_sentence_list;
@@ -58,6 +60,23 @@ uint64_t tt_sentence_list_words(const tt_sentence_list *l);
  * the document (copied). TT_ENOMEM, TT_ELIMIT (TT_LIMIT_DISTINCT_TERMS). */
 tt_status tt_sentence_list_add(tt_sentence_list *l, const tt_blocks *b, const char *raw,
                                size_t raw_len, size_t raw_off, int html, const char *doc);
+
+/* A named stretch of a document's block text, [start, end) in
+ * tt_blocks.text: a section (sections.h) as the sentences know it. */
+typedef struct tt_text_range {
+    size_t start, end;
+    const char *name;
+} tt_text_range;
+
+/* Labels the sentences of the list's last document with the name of the
+ * range holding the start of their block (offsets of the blocks the
+ * sentences were read from, which tt_blocks_keep_sections leaves as they
+ * were); a sentence outside every range keeps no section. Names are
+ * copied. TT_ENOMEM. */
+tt_status tt_sentence_list_label(tt_sentence_list *l, const tt_text_range *r, size_t n);
+
+/* The sentence's section name, "" when it has none. */
+const char *tt_sentence_section(const tt_sentence_list *l, const tt_sentence *s);
 
 typedef enum tt_change_kind {
     TT_CHANGE_UNCHANGED = 0,

@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "termtide/alloc.h"
 #include "termtide/changes.h"
 #include "termtide/document.h"
 #include "termtide/meta.h"
@@ -34,10 +35,11 @@ const char tt_help_changes[] =
     "                        each entity's consecutive periods (as for compare)\n"
     "  --entity NAME, --kinds LIST   which documents form each series\n"
     "  --show summary|sentences    sentences: one row per sentence: entity base target\n"
-    "                        change similarity base_document base_offset\n"
+    "                        change similarity section base_document base_offset\n"
     "                        target_document target_offset text words_added\n"
     "                        words_removed (text: the target's sentence, or the base's\n"
-    "                        for a removed one; offsets in the files)\n"
+    "                        for a removed one; offsets in the files; section: the\n"
+    "                        sentence's section, rows grouped by section)\n"
     "  --threshold T         the least similarity of a modified sentence (default 0.5)\n"
     "  --section NAME        compare only this section of each document (repeatable),\n"
     "                        e.g. --section risk-factors; --section-rules FILE\n"
@@ -78,8 +80,8 @@ static const char *const summary_cols[] = {
     "entity", "base", "target", "base_sentences", "target_sentences", "unchanged", "modified",
     "added", "removed", "new_word_share", "cosine", "jaccard", "edit_similarity" };
 static const char *const sentence_cols[] = {
-    "entity", "base", "target", "change", "similarity", "base_document", "base_offset",
-    "target_document", "target_offset", "text", "words_added", "words_removed" };
+    "entity", "base", "target", "change", "similarity", "section", "base_document",
+    "base_offset", "target_document", "target_offset", "text", "words_added", "words_removed" };
 
 typedef struct changes_ctx {
     cli_pipeline pipe;
@@ -99,24 +101,45 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
 {
     changes_ctx *c = vctx;
     const tt_read_options *ro = &c->pipe.batch.read;
+    /* each sentence is labelled with its section, found on the whole
+       document before --section cuts it (block offsets stay as they were) */
+    tt_status st = tt_sections_find(doc->blocks, ro->section_rules, &c->secs);
+    if (st)
+        return st;
+    tt_text_range *ranges = tt_reallocarray(NULL, c->secs.n + 1, sizeof *ranges);
+    if (!ranges)
+        return TT_ENOMEM;
+    size_t nr = 0;
+    for (size_t i = 0; i < c->secs.n; i++) {
+        const tt_section *sec = &c->secs.items[i];
+        if (sec->end <= sec->first || sec->end > doc->blocks->n)
+            continue;
+        const tt_block *last = &doc->blocks->items[sec->end - 1];
+        ranges[nr].start = doc->blocks->items[sec->first].off;
+        ranges[nr].end = last->off + last->len + 1;
+        ranges[nr].name = sec->name;
+        nr++;
+    }
     if (ro->n_sections) {
         size_t kept = 0;
-        tt_status st = tt_sections_find(doc->blocks, ro->section_rules, &c->secs);
-        if (!st)
-            st = tt_blocks_keep_sections(doc->blocks, &c->secs, ro->sections, ro->n_sections,
-                                         &kept);
-        if (st)
-            return st;
-        if (!kept) {
+        st = tt_blocks_keep_sections(doc->blocks, &c->secs, ro->sections, ro->n_sections, &kept);
+        if (!st && !kept) {
             cli_error("%s: no section %s%s found (skipped)", doc->name, ro->sections[0],
                       ro->n_sections > 1 ? " or the others" : "");
             c->problems++;
+            tt_free(ranges);
             return TT_OK;
         }
     }
-    c->documents++;
-    return tt_sentence_list_add(c->list, doc->blocks, doc->raw, doc->raw_len, doc->raw_off,
-                                doc->kind == TT_KIND_HTML, doc->name);
+    if (!st) {
+        c->documents++;
+        st = tt_sentence_list_add(c->list, doc->blocks, doc->raw, doc->raw_len, doc->raw_off,
+                                  doc->kind == TT_KIND_HTML, doc->name);
+    }
+    if (!st)
+        st = tt_sentence_list_label(c->list, ranges, nr);
+    tt_free(ranges);
+    return st;
 }
 
 /* Reads the files of one side into list. Returns 0 on a fatal error. */
@@ -188,8 +211,43 @@ static tt_status write_pair(changes_ctx *c, const char *entity, const char *base
         if (!st) st = tt_table_fixed(&w, al.edit_similarity, 4);
         if (!st) st = tt_table_end_row(&w);
     }
-    for (size_t k = 0; c->sentences && k < al.n && !st; k++) {
-        const tt_sentence_change *ch = &al.v[k];
+    /* grouped by section: the sections in the order the rows first meet
+       them (the target's sentences come first, then the removed ones), and
+       within one section the rows in their order */
+    size_t *order = NULL;
+    if (c->sentences && al.n) {
+        order = tt_reallocarray(NULL, al.n, sizeof *order);
+        const char **names = tt_reallocarray(NULL, al.n, sizeof *names);
+        size_t *rank = tt_reallocarray(NULL, al.n, sizeof *rank);
+        if (!order || !names || !rank) {
+            tt_free(order);
+            tt_free(names);
+            tt_free(rank);
+            tt_alignment_release(&al);
+            return TT_ENOMEM;
+        }
+        size_t nn = 0, at = 0;
+        for (size_t k = 0; k < al.n; k++) {
+            const tt_sentence_change *ch = &al.v[k];
+            const char *sec = ch->target != SIZE_MAX
+                                  ? tt_sentence_section(b, tt_sentence_at(b, ch->target))
+                                  : tt_sentence_section(a, tt_sentence_at(a, ch->base));
+            size_t r = 0;
+            while (r < nn && strcmp(names[r], sec))
+                r++;
+            if (r == nn)
+                names[nn++] = sec;
+            rank[k] = r;
+        }
+        for (size_t r = 0; r < nn; r++)
+            for (size_t k = 0; k < al.n; k++)
+                if (rank[k] == r)
+                    order[at++] = k;
+        tt_free(names);
+        tt_free(rank);
+    }
+    for (size_t i = 0; c->sentences && i < al.n && !st; i++) {
+        const tt_sentence_change *ch = &al.v[order[i]];
         const tt_sentence *sb = ch->base != SIZE_MAX ? tt_sentence_at(a, ch->base) : NULL;
         const tt_sentence *st_ = ch->target != SIZE_MAX ? tt_sentence_at(b, ch->target) : NULL;
         char *added = NULL, *removed = NULL;
@@ -199,12 +257,14 @@ static tt_status write_pair(changes_ctx *c, const char *entity, const char *base
             free(added);
             return TT_ENOMEM;
         }
-        st = tt_table_begin(&w, c->format, &c->buf, sentence_cols, 12, 0);
+        st = tt_table_begin(&w, c->format, &c->buf, sentence_cols, 13, 0);
         if (!st) st = tt_table_cstr(&w, entity);
         if (!st) st = tt_table_cstr(&w, base);
         if (!st) st = tt_table_cstr(&w, target);
         if (!st) st = tt_table_cstr(&w, tt_change_kind_name(ch->kind));
         if (!st) st = tt_table_fixed(&w, ch->similarity, 4);
+        if (!st) st = tt_table_cstr(&w, st_ ? tt_sentence_section(b, st_)
+                                            : tt_sentence_section(a, sb));
         if (!st) st = tt_table_cstr(&w, sb ? tt_sentence_doc(a, sb) : "");
         if (!st) st = sb && sb->offset >= 0 ? tt_table_u64(&w, (uint64_t)sb->offset)
                                             : tt_table_cstr(&w, "");
@@ -220,6 +280,7 @@ static tt_status write_pair(changes_ctx *c, const char *entity, const char *base
         if (!st)
             st = cli_flush(&c->out, &c->buf, &c->err, 0);
     }
+    tt_free(order);
     tt_alignment_release(&al);
     return st ? st : cli_flush(&c->out, &c->buf, &c->err, 0);
 }
@@ -323,7 +384,7 @@ int tt_cmd_changes(int argc, char **argv)
     }
     out_open = 1;
     tt_table_writer w;
-    if (c.header && (c.sentences ? tt_table_begin(&w, c.format, &c.buf, sentence_cols, 12, 1)
+    if (c.header && (c.sentences ? tt_table_begin(&w, c.format, &c.buf, sentence_cols, 13, 1)
                                  : tt_table_begin(&w, c.format, &c.buf, summary_cols, 13, 1)))
         goto oom;
     tt_status st = TT_OK;

@@ -656,12 +656,16 @@ static const tt_report_column mover_cols[] = {
     { "g2", "signed_g2", 0 },     { "q_value", NULL, 0 },    { "direction", NULL, 0 },
 };
 
-static const tt_report_column sentence_cols[] = {
-    { "similarity", NULL, 0 }, { "target_offset", NULL, 0 }, { "text", NULL, TT_REPORT_WRAP },
+static const tt_report_column modified_cols[] = {
+    { "section", NULL, 0 },                 { "similarity", NULL, 0 },
+    { "target_offset", NULL, 0 },           { "text", NULL, TT_REPORT_WRAP },
     { "words_added", NULL, TT_REPORT_WRAP }, { "words_removed", NULL, TT_REPORT_WRAP },
 };
+static const tt_report_column added_cols[] = {
+    { "section", NULL, 0 }, { "target_offset", NULL, 0 }, { "text", NULL, TT_REPORT_WRAP },
+};
 static const tt_report_column removed_cols[] = {
-    { "base_offset", NULL, 0 }, { "text", NULL, TT_REPORT_WRAP },
+    { "section", NULL, 0 }, { "base_offset", NULL, 0 }, { "text", NULL, TT_REPORT_WRAP },
 };
 
 /* One pair of consecutive periods (or the two sides). */
@@ -777,14 +781,14 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
                 if (!ns)
                     continue;
                 char cap_[200];
-                snprintf(cap_, sizeof cap_, "%s: %zu of %zu, in document order", titles[kk], ns,
-                         all);
+                snprintf(cap_, sizeof cap_, "%s: %zu of %zu, by section, in document order",
+                         titles[kk], ns, all);
                 if (kk == 2)
-                    pg_table(p, &tb->sentences, "sentences", removed_cols, 2, sel, ns, cap_);
+                    pg_table(p, &tb->sentences, "sentences", removed_cols, 3, sel, ns, cap_);
                 else if (kk == 1)
-                    pg_table(p, &tb->sentences, "sentences", sentence_cols, 5, sel, ns, cap_);
+                    pg_table(p, &tb->sentences, "sentences", modified_cols, 6, sel, ns, cap_);
                 else
-                    pg_table(p, &tb->sentences, "sentences", sentence_cols + 1, 2, sel, ns, cap_);
+                    pg_table(p, &tb->sentences, "sentences", added_cols, 3, sel, ns, cap_);
             }
             tt_free(sel);
         }
