@@ -283,6 +283,19 @@ static void test_demo_report(void **state)
     free(cos);
     free(sum);
     xmlFreeDoc(doc);
+    free(page2);
+    /* --text: the same pictures with <text> labels, a far smaller page */
+    snprintf(args, sizeof args, "%s --text -o %s", demo_args, path2);
+    free(tt_test_run(args, 1, &st));
+    assert_int_equal(st, 0);
+    page2 = slurp(path2, &n2);
+    assert_non_null(page2);
+    assert_true(n2 * 4 < n);
+    doc = parse(page2, n2);
+    assert_non_null(doc);
+    assert_int_equal(count_xpath(doc, "//h:figure/s:svg"), 9 * 2 + 2);
+    assert_true(count_xpath(doc, "//s:text[.='going']") + count_xpath(doc, "//s:text") > 100);
+    xmlFreeDoc(doc);
     free(page);
     free(page2);
     unlink(path);

@@ -67,6 +67,9 @@ const char tt_help_report[] =
     "  --hits N              watch-list hits listed in context per entity (100)\n"
     "  --sentences N         sentences listed per kind of change and pair (12)\n"
     "  --title TEXT          the page's title\n"
+    "  --text                pictures with <text> elements instead of outline paths: a\n"
+    "                        page several times smaller, drawn with the reader's copy\n"
+    "                        of DejaVu Sans (the font the layout was measured with)\n"
     "  --keep-tables DIR     write the tables and pictures behind the page into DIR\n"
     "                        (created if missing) and keep them\n"
     "  -o, --output FILE     write the page atomically to FILE (default standard\n"
@@ -84,7 +87,7 @@ const char tt_help_report[] =
 enum { OPT_MANIFEST = CLI_OPT_FIRST_FREE, OPT_LAYOUT, OPT_HEADERS, OPT_HEADER_PERIOD,
        OPT_ENTITY, OPT_KINDS, OPT_BASE, OPT_TARGET, OPT_RULES, OPT_LEXICON, OPT_NO_TONE,
        OPT_NO_CHANGES, OPT_TOP, OPT_CLOUD_WORDS, OPT_HEATMAP_TERMS, OPT_MIN_COUNT, OPT_HITS,
-       OPT_SENTENCES, OPT_TITLE, OPT_KEEP };
+       OPT_SENTENCES, OPT_TITLE, OPT_KEEP, OPT_TEXT };
 
 static const struct option longopts[] = {
     { "manifest", required_argument, NULL, OPT_MANIFEST },
@@ -107,6 +110,7 @@ static const struct option longopts[] = {
     { "sentences", required_argument, NULL, OPT_SENTENCES },
     { "title", required_argument, NULL, OPT_TITLE },
     { "keep-tables", required_argument, NULL, OPT_KEEP },
+    { "text", no_argument, NULL, OPT_TEXT },
     { "output", required_argument, NULL, 'o' },
     { "help", no_argument, NULL, 'h' },
     CLI_PIPELINE_LONGOPTS,
@@ -182,6 +186,7 @@ typedef struct report_ctx {
     strv seen;                    /* messages already shown */
     char last_error[600];         /* the last error a command printed */
     int trouble;                  /* some command reported trouble */
+    int text;                     /* pictures with <text> elements (--text) */
     unsigned rng;
 } report_ctx;
 
@@ -638,6 +643,7 @@ static int draw(report_ctx *c, tt_cmd_fn fn, const char *cmd, const char *kind, 
     if (ok && pair) ok = strv_push(&a, "--pair", 0) && strv_push(&a, pair, 0);
     for (size_t i = 0; ok && extra && extra[i]; i++)
         ok = strv_push(&a, extra[i], 0);
+    if (ok && c->text) ok = strv_push(&a, "--text", 0);
     if (ok) ok = strv_push(&a, "-o", 0) && strv_push(&a, out, 0);
     int drawn = ok && run(c, fn, &a, out);
     strv_release(&a);
@@ -1454,6 +1460,7 @@ int tt_cmd_report(int argc, char **argv)
             break;
         case OPT_TITLE: o.title = optarg; break;
         case OPT_KEEP: keep = optarg; break;
+        case OPT_TEXT: c.text = 1; break;
         case 'o': output = optarg; break;
         case 'q': quiet = 1; break;
         case 'j': jobs = optarg; break;
