@@ -9,7 +9,7 @@ holds what one `termtide index` run over every file would have written.
 
     contrib/dask_index.py --scheduler tcp://10.0.0.5:8786 --work-dir /shared/tt \\
         --shards 64 archive.db filelist.txt
-    contrib/dask_index.py --workers 2 --work-dir /tmp/tt demo.db filelist.txt   # local
+    contrib/dask_index.py --workers 2 --work-dir /tmp/termtide-work demo.db filelist.txt   # local
 
 Needs Debian's python3-distributed (Dask) and termtide on every worker.
 Counting options for `termtide index` go after `--`, e.g. `-- --stem`.
