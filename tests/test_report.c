@@ -296,6 +296,20 @@ static void test_demo_report(void **state)
     assert_int_equal(count_xpath(doc, "//h:figure/s:svg"), 9 * 2 + 2);
     assert_true(count_xpath(doc, "//s:text[.='going']") + count_xpath(doc, "//s:text") > 100);
     xmlFreeDoc(doc);
+    free(page2);
+    /* lists are cut, and the page says of how many: 13 hits, 52 sentences
+       added from 2023-Q3 to 2023-Q4 */
+    snprintf(args, sizeof args, "%s --text --hits 2 --sentences 1 -o %s", demo_args, path2);
+    free(tt_test_run(args, 1, &st));
+    assert_int_equal(st, 0);
+    page2 = slurp(path2, &n2);
+    assert_non_null(page2);
+    doc = parse(page2, n2);
+    assert_non_null(doc);
+    assert_int_equal(count_xpath(doc, "//h:caption[.='Hits in context: 2 of 13, in document order']"),
+                     1);
+    assert_int_equal(count_xpath(doc, "//h:caption[starts-with(., 'Added: 1 of 52,')]"), 1);
+    xmlFreeDoc(doc);
     free(page);
     free(page2);
     unlink(path);

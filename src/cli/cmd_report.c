@@ -24,6 +24,7 @@
 #include "termtide/limits.h"
 #include "termtide/meta.h"
 #include "termtide/report.h"
+#include "termtide/termtable.h"
 #include "termtide/tsvread.h"
 #include "cli.h"
 
@@ -476,6 +477,10 @@ static size_t entity_periods(const series *s, const char *entity, tt_period *out
 
 /* ---- the parts of a chapter -------------------------------------------- */
 
+/* The tables the page is laid out from. The large ones (movers, sentences,
+ * hits) are read as streams and only the rows the page lists are kept, with
+ * the counts the page states, so an archive's report never holds a table
+ * of every hit or every sentence (or meets the tables' row limit). */
 typedef struct tables {
     tt_tsv summary, movers, trend, tone, changes, sentences, hits;
     int has_summary, has_movers, has_trend, has_tone, has_changes, has_sentences, has_hits;
@@ -484,7 +489,32 @@ typedef struct tables {
     int has_tone_lines;
     int hits_ran;          /* the watch-list ran (has_hits: and hit) */
     tt_buf hits_comments;
+    strv mover_entities;   /* entities with movers, and their own movers file */
+    strv mover_files;
+    strv rules;            /* the watch-list rules that hit, in order met */
+    tt_termtable *counts;  /* "entity\tperiod\trule": hits; "entity\tbase\ttarget\tchange": sentences */
 } tables;
+
+/* A count kept under a key of tab-joined parts. */
+static uint64_t count_of(const tables *tb, const char *a, const char *b, const char *c,
+                         const char *d)
+{
+    char key[1024];
+    int k = d ? snprintf(key, sizeof key, "%s\t%s\t%s\t%s", a, b, c, d)
+              : snprintf(key, sizeof key, "%s\t%s\t%s", a, b, c);
+    if (!tb->counts || k < 0 || (size_t)k >= sizeof key)
+        return 0;
+    return tt_termtable_get(tb->counts, key, (size_t)k);
+}
+
+/* The movers file of an entity, for its pictures; NULL when it has none. */
+static const char *movers_file(const tables *tb, const char *entity)
+{
+    for (size_t i = 0; i < tb->mover_entities.n; i++)
+        if (!strcmp(tb->mover_entities.v[i], entity))
+            return tb->mover_files.v[i];
+    return NULL;
+}
 
 /* Looks up a number in the row of `t` matching entity and a column value
  * (period in `pcol`); NaN when absent. */
@@ -536,8 +566,6 @@ static void overview(page *p, tables *tb, const char *entity, char (*names)[TT_P
     tt_buf_init(&text, 0);
     tt_table_writer w;
     tt_status st = tt_table_begin(&w, TT_FORMAT_TSV, &text, cols, nc, 1);
-    long hce = tb->has_hits ? tt_tsv_column(&tb->hits, "entity") : -1;
-    long hcp = tb->has_hits ? tt_tsv_column(&tb->hits, "period") : -1;
     for (size_t i = 0; i < np && !st; i++) {
         const char *pt = names[i];
         uint64_t docs = ndocs[i];
@@ -575,10 +603,8 @@ static void overview(page *p, tables *tb, const char *entity, char (*names)[TT_P
         }
         if (tb->hits_ran && !st) {
             uint64_t hits = 0;
-            for (size_t r = 0; tb->has_hits && r < tb->hits.nrows; r++)
-                if (!strcmp(cellc(&tb->hits, r, hce), entity) &&
-                    !strcmp(cellc(&tb->hits, r, hcp), pt))
-                    hits++;
+            for (size_t r = 0; r < tb->rules.n; r++)
+                hits += count_of(tb, entity, pt, tb->rules.v[r], NULL);
             st = tt_table_u64(&w, hits);
         }
         if (!st) st = tt_table_end_row(&w);
@@ -733,13 +759,14 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
                     (unsigned long long)o->min_count);
         }
         tt_free(sel);
-        if (n && !p->failed) {
+        const char *mfile = movers_file(tb, entity);
+        if (n && mfile && !p->failed) {
             char top[32];
             snprintf(top, sizeof top, "%llu", (unsigned long long)o->top);
             const char *extra[] = { "--top", top, NULL };
             snprintf(name, sizeof name, "bars-%u.svg", k);
-            int ok = draw(c, tt_cmd_chart, "chart", "bars", tb->movers_path, entity, pair, extra,
-                          name, out, sizeof out);
+            int ok = draw(c, tt_cmd_chart, "chart", "bars", mfile, entity, pair, extra, name, out,
+                          sizeof out);
             pg_figure(p, out, ok,
                       "Bars: Log Ratio (binary log of the ratio of rates); filled bars are "
                       "significant (q at most 0.05).");
@@ -748,8 +775,8 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
                 snprintf(cw, sizeof cw, "%llu", (unsigned long long)o->cloud_words);
                 const char *cextra[] = { "--top", cw, "--shrink", "--height", "520", NULL };
                 snprintf(name, sizeof name, "cloud-%u.svg", k);
-                ok = draw(c, tt_cmd_cloud, "cloud", NULL, tb->movers_path, entity, pair, cextra,
-                          name, out, sizeof out);
+                ok = draw(c, tt_cmd_cloud, "cloud", NULL, mfile, entity, pair, cextra, name, out,
+                          sizeof out);
                 pg_figure(p, out, ok,
                           "Change cloud of the strongest movers: size follows the Log Ratio; "
                           "blue rose, orange fell.");
@@ -777,18 +804,17 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
             static const char *const titles[] = { "Added", "Reworded", "Removed" };
             size_t *sel = tt_reallocarray(NULL, n + 1, sizeof *sel);
             for (size_t kk = 0; sel && kk < 3; kk++) {
-                size_t ns = 0, all = 0;
+                size_t ns = 0;
+                uint64_t all = count_of(tb, entity, base, target, kinds[kk]);
                 for (size_t i = 0; i < n; i++)
-                    if (!strcmp(cellc(&tb->sentences, rows[i], ck), kinds[kk])) {
-                        all++;
-                        if (ns < o->sentences)
-                            sel[ns++] = rows[i];
-                    }
+                    if (!strcmp(cellc(&tb->sentences, rows[i], ck), kinds[kk]) &&
+                        ns < o->sentences)
+                        sel[ns++] = rows[i];
                 if (!ns)
                     continue;
                 char cap_[200];
-                snprintf(cap_, sizeof cap_, "%s: %zu of %zu, by section, in document order",
-                         titles[kk], ns, all);
+                snprintf(cap_, sizeof cap_, "%s: %zu of %llu, by section, in document order",
+                         titles[kk], ns, (unsigned long long)all);
                 if (kk == 2)
                     pg_table(p, &tb->sentences, "sentences", removed_cols, 3, sel, ns, cap_);
                 else if (kk == 1)
@@ -802,7 +828,8 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
     tt_free(rows);
 }
 
-/* The watch-list part of an entity (entity NULL: every row). */
+/* The watch-list part of an entity: hits per rule and period (from the
+ * counts), then the listed hits in context. */
 static void hits_part(page *p, tables *tb, const report_opts *o, const char *entity,
                       char (*pnames)[TT_PERIOD_TEXT_MAX], size_t np)
 {
@@ -820,93 +847,82 @@ static void hits_part(page *p, tables *tb, const report_opts *o, const char *ent
             pg_para(p, 1, "%s", line);
         }
     }
-    if (!tb->has_hits) {
+    /* rule x period counts, for the rules that hit this entity */
+    size_t npc = np < 64 ? np : 64;
+    const char *cols[68];
+    const char (*names)[TT_PERIOD_TEXT_MAX] = (const char (*)[TT_PERIOD_TEXT_MAX])pnames;
+    size_t nc = 0;
+    cols[nc++] = "rule";
+    for (size_t i = 0; i < npc; i++)
+        cols[nc++] = names[i];
+    cols[nc++] = "total";
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    tt_table_writer w;
+    tt_status st = tt_table_begin(&w, TT_FORMAT_TSV, &text, cols, nc, 1);
+    uint64_t all = 0;
+    size_t nrules = 0;
+    for (size_t ru = 0; ru < tb->rules.n && !st; ru++) {
+        uint64_t total = 0;
+        for (size_t i = 0; i < np; i++)
+            total += count_of(tb, entity, names[i], tb->rules.v[ru], NULL);
+        if (!total)
+            continue;
+        nrules++;
+        all += total;
+        st = tt_table_cstr(&w, tb->rules.v[ru]);
+        for (size_t i = 0; i < npc && !st; i++)
+            st = tt_table_u64(&w, count_of(tb, entity, names[i], tb->rules.v[ru], NULL));
+        if (!st) st = tt_table_u64(&w, total);
+        if (!st) st = tt_table_end_row(&w);
+    }
+    if (!st && !nrules) {
         pg_para(p, 0, "No rule of the watch-list hit in these documents.");
+        tt_buf_release(&text);
         return;
     }
-    long ce = tt_tsv_column(t, "entity"), cp = tt_tsv_column(t, "period"),
-         cr = tt_tsv_column(t, "rule");
+    tt_tsv ct;
+    tt_tsv_init(&ct);
+    if (!st) st = tt_tsv_parse(text.data, text.len, "hits by period", &ct, &p->err);
+    if (!st) {
+        tt_report_column rc[70];
+        for (size_t i = 0; i < nc; i++) {
+            rc[i].name = cols[i];
+            rc[i].label = NULL;
+            rc[i].flags = 0;
+        }
+        pg_table(p, &ct, "hits by period", rc, nc, NULL, ct.nrows,
+                 np > npc ? "Hits per rule and period (the first 64 periods)"
+                          : "Hits per rule and period");
+    } else {
+        p->failed = 1;
+    }
+    tt_tsv_release(&ct);
+    tt_buf_release(&text);
+    if (!tb->has_hits)
+        return;
+    long ce = tt_tsv_column(t, "entity"), cp = tt_tsv_column(t, "period");
     size_t *rows = tt_reallocarray(NULL, t->nrows + 1, sizeof *rows);
-    strv rules = { 0 };
     if (!rows) {
         p->failed = 1;
         return;
     }
     size_t n = 0;
     for (size_t r = 0; r < t->nrows; r++)
-        if (!entity || ce < 0 || !strcmp(cellc(t, r, ce), entity)) {
+        if (ce < 0 || !strcmp(cellc(t, r, ce), entity))
             rows[n++] = r;
-            if (!strv_has(&rules, cellc(t, r, cr)))
-                strv_push(&rules, cellc(t, r, cr), 1);
-        }
-    if (!n) {
-        pg_para(p, 0, "No rule of the watch-list hit in these documents.");
-        tt_free(rows);
-        strv_release(&rules);
-        return;
-    }
-    /* rule x period counts */
-    if (np && cp >= 0) {
-        const char *cols[68];
-        size_t npc = np < 64 ? np : 64;
-        size_t nc = 0;
-        const char (*names)[TT_PERIOD_TEXT_MAX] = (const char (*)[TT_PERIOD_TEXT_MAX])pnames;
-        cols[nc++] = "rule";
-        for (size_t i = 0; i < npc; i++)
-            cols[nc++] = names[i];
-        cols[nc++] = "total";
-        tt_buf text;
-        tt_buf_init(&text, 0);
-        tt_table_writer w;
-        tt_status st = tt_table_begin(&w, TT_FORMAT_TSV, &text, cols, nc, 1);
-        for (size_t ru = 0; ru < rules.n && !st; ru++) {
-            st = tt_table_cstr(&w, rules.v[ru]);
-            uint64_t total = 0;
-            for (size_t i = 0; i < npc && !st; i++) {
-                uint64_t k = 0;
-                for (size_t j = 0; j < n; j++)
-                    if (!strcmp(cellc(t, rows[j], cr), rules.v[ru]) &&
-                        !strcmp(cellc(t, rows[j], cp), names[i]))
-                        k++;
-                total += k;
-                st = tt_table_u64(&w, k);
-            }
-            if (!st) st = tt_table_u64(&w, total);
-            if (!st) st = tt_table_end_row(&w);
-        }
-        tt_tsv ct;
-        tt_tsv_init(&ct);
-        if (!st) st = tt_tsv_parse(text.data, text.len, "hits by period", &ct, &p->err);
-        if (!st) {
-            tt_report_column rc[70];
-            for (size_t i = 0; i < nc; i++) {
-                rc[i].name = cols[i];
-                rc[i].label = NULL;
-                rc[i].flags = 0;
-            }
-            pg_table(p, &ct, "hits by period", rc, nc, NULL, ct.nrows, "Hits per rule and period");
-        } else {
-            p->failed = 1;
-        }
-        tt_tsv_release(&ct);
-        tt_buf_release(&text);
-    }
     static const tt_report_column hit_cols[] = {
         { "period", NULL, 0 },    { "rule", NULL, 0 },
         { "before", "", TT_REPORT_RIGHT }, { "match", "hit", TT_REPORT_MARK },
         { "after", "", 0 },       { "document", NULL, 0 }, { "line", NULL, 0 },
     };
-    uint64_t show = o->hits < n ? o->hits : n;
-    if (show > TT_LIMIT_REPORT_ROWS)
-        show = TT_LIMIT_REPORT_ROWS;
+    (void)o;
     char cap_[200];
-    snprintf(cap_, sizeof cap_, "Hits in context: %llu of %zu, in document order",
-             (unsigned long long)show, n);
-    if (show)
-        pg_table(p, t, "hits", cp >= 0 ? hit_cols : hit_cols + 1, cp >= 0 ? 7 : 6, rows,
-                 (size_t)show, cap_);
+    snprintf(cap_, sizeof cap_, "Hits in context: %zu of %llu, in document order", n,
+             (unsigned long long)all);
+    if (n)
+        pg_table(p, t, "hits", cp >= 0 ? hit_cols : hit_cols + 1, cp >= 0 ? 7 : 6, rows, n, cap_);
     tt_free(rows);
-    strv_release(&rules);
 }
 
 /* ---- running the commands ------------------------------------------------ */
@@ -959,51 +975,406 @@ static int sides_meta(void *ctx, const char *document, const char **entity, char
     return 0;
 }
 
-/* hits.tsv: the search table with entity and period columns in front.
- * Returns 1 with hits, 0 without, -1 on a problem (printed). */
-static int hits_with_meta(const char *raw_path, const char *path, doc_meta_fn fn, void *ctx,
-                          tables *tb)
+/* ---- reading the large tables as streams ------------------------------- */
+
+/* Calls fn(ctx, line, len, is_header) for every line of a table file
+ * (without its newline); lines starting "# " (search's provenance) go to
+ * comments when given. Returns 0 when the file cannot be read or fn
+ * returns 0 (a problem fn printed). */
+static int each_line(const char *path, tt_buf *comments,
+                     int (*fn)(void *ctx, const char *line, size_t len, int header), void *ctx)
 {
-    tt_tsv raw;
-    tt_tsv_init(&raw);
-    int got = read_table(raw_path, &raw, &tb->hits_comments);
-    if (got <= 0)
-        return got;
-    const char *cols[TT_LIMIT_TABLE_COLUMNS + 2];
-    size_t nc = 0;
-    cols[nc++] = "entity";
-    cols[nc++] = "period";
-    for (size_t k = 0; k < raw.ncols && nc < sizeof cols / sizeof *cols; k++)
-        cols[nc++] = raw.cells[k];
-    long cdoc = tt_tsv_column(&raw, "document");
-    tt_buf text;
-    tt_buf_init(&text, 0);
-    tt_table_writer w;
-    tt_status st = cdoc < 0 ? TT_EPARSE : tt_table_begin(&w, TT_FORMAT_TSV, &text, cols, nc, 1);
-    for (size_t r = 0; r < raw.nrows && !st; r++) {
-        const char *entity = "";
-        char period[TT_PERIOD_TEXT_MAX] = "";
-        if (!fn(ctx, tt_tsv_cell(&raw, r, (size_t)cdoc), &entity, period))
-            continue;
-        st = tt_table_cstr(&w, entity);
-        if (!st) st = tt_table_cstr(&w, period);
-        for (size_t k = 0; k < raw.ncols && !st; k++)
-            st = tt_table_cstr(&w, tt_tsv_cell(&raw, r, k));
-        if (!st) st = tt_table_end_row(&w);
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        cli_error("%s: cannot read: %s", path, strerror(errno));
+        return 0;
     }
+    char *line = NULL;
+    size_t cap = 0;
+    ssize_t got;
+    int header = 1, ok = 1;
+    while (ok && (got = getline(&line, &cap, f)) >= 0) {
+        size_t len = (size_t)got;
+        while (len && (line[len - 1] == '\n' || line[len - 1] == '\r'))
+            len--;
+        if (len >= 2 && line[0] == '#' && line[1] == ' ') {
+            if (comments && (tt_buf_append(comments, line, len) || tt_buf_putc(comments, '\n')))
+                ok = 0;
+            continue;
+        }
+        ok = fn(ctx, line, len, header);
+        header = 0;
+    }
+    if (ferror(f)) {
+        cli_error("%s: read error", path);
+        ok = 0;
+    }
+    free(line);
+    fclose(f);
+    return ok;
+}
+
+/* Field k (0-based) of a tab-separated line, as written (TSV-escaped). */
+static const char *field(const char *line, size_t len, size_t k, size_t *flen)
+{
+    size_t i = 0;
+    for (size_t f = 0; f < k; f++) {
+        const char *t = memchr(line + i, '\t', len - i);
+        if (!t) {
+            *flen = 0;
+            return "";
+        }
+        i = (size_t)(t - line) + 1;
+    }
+    const char *t = memchr(line + i, '\t', len - i);
+    *flen = t ? (size_t)(t - (line + i)) : len - i;
+    return line + i;
+}
+
+/* The index of a column in a header line, or -1. */
+static long header_index(const char *line, size_t len, const char *name)
+{
+    size_t nl = strlen(name), fl;
+    for (size_t k = 0; k < TT_LIMIT_TABLE_COLUMNS; k++) {
+        const char *f = field(line, len, k, &fl);
+        if (fl == nl && !memcmp(f, name, nl))
+            return (long)k;
+        if (f + fl >= line + len)
+            break;
+    }
+    return -1;
+}
+
+/* A field unescaped as tt_table_str escapes TSV cells, into out (NUL-ended). */
+static void unescape(const char *f, size_t n, char *out, size_t size)
+{
+    size_t o = 0;
+    for (size_t i = 0; i < n && o + 1 < size; i++) {
+        char c = f[i];
+        if (c == '\\' && i + 1 < n) {
+            char e = f[++i];
+            c = e == 't' ? '\t' : e == 'n' ? '\n' : e == 'r' ? '\r' : e;
+        }
+        out[o++] = c;
+    }
+    out[o] = '\0';
+}
+
+/* Adds 1 to the count under a key of tab-joined parts; returns the count
+ * before. */
+static uint64_t bump(tables *tb, const char *key, size_t len)
+{
+    uint64_t before = tt_termtable_get(tb->counts, key, len);
+    return tt_termtable_add(tb->counts, key, len, 1) ? UINT64_MAX : before;
+}
+
+typedef struct hits_stream {
+    tables *tb;
+    doc_meta_fn meta;
+    void *meta_ctx;
+    uint64_t limit;       /* hits listed per entity */
+    long cdoc, crule;
+    tt_buf text;          /* header and the listed rows, entity and period in front */
+    size_t rows;
+    FILE *all;            /* hits.tsv: every hit with its entity and period */
+    int failed;
+} hits_stream;
+
+static int hits_line(void *vctx, const char *line, size_t len, int header)
+{
+    hits_stream *h = vctx;
+    tables *tb = h->tb;
+    tt_status st = TT_OK;
+    if (header) {
+        h->cdoc = header_index(line, len, "document");
+        h->crule = header_index(line, len, "rule");
+        if (h->cdoc < 0 || h->crule < 0) {
+            cli_error("the search table has no document or rule column");
+            return 0;
+        }
+        st = tt_buf_puts(&h->text, "entity\tperiod\t");
+        if (!st) st = tt_buf_append(&h->text, line, len);
+        if (!st) st = tt_buf_putc(&h->text, '\n');
+        if (h->all)
+            fprintf(h->all, "entity\tperiod\t%.*s\n", (int)len, line);
+        return !st;
+    }
+    size_t dl, rl;
+    const char *d = field(line, len, (size_t)h->cdoc, &dl);
+    const char *r = field(line, len, (size_t)h->crule, &rl);
+    char doc[TT_META_PATH_MAX + 64], rule[512];
+    unescape(d, dl, doc, sizeof doc);
+    unescape(r, rl, rule, sizeof rule);
+    const char *entity = "";
+    char period[TT_PERIOD_TEXT_MAX] = "";
+    if (!h->meta(h->meta_ctx, doc, &entity, period))
+        return 1;
+    if (!strv_has(&tb->rules, rule) && !strv_push(&tb->rules, rule, 1))
+        return 0;
+    char key[1200];
+    int k = snprintf(key, sizeof key, "%s\t%s\t%s", entity, period, rule);
+    if (k < 0 || (size_t)k >= sizeof key || bump(tb, key, (size_t)k) == UINT64_MAX)
+        return 0;
+    /* listed per entity: the first `limit` hits */
+    k = snprintf(key, sizeof key, "\x01%s", entity);
+    uint64_t listed = k > 0 && (size_t)k < sizeof key ? bump(tb, key, (size_t)k) : UINT64_MAX;
+    if (listed == UINT64_MAX)
+        return 0;
+    char esc_entity[600];
+    tt_buf eb;
+    tt_buf_init(&eb, 0);
+    tt_table_writer w;
+    static const char *const ecols[] = { "entity", "period" };
+    st = tt_table_begin(&w, TT_FORMAT_TSV, &eb, ecols, 2, 0);
+    if (!st) st = tt_table_cstr(&w, entity);
+    if (!st) st = tt_table_cstr(&w, period);
+    snprintf(esc_entity, sizeof esc_entity, "%.*s", (int)eb.len, eb.data);
+    tt_buf_release(&eb);
+    if (st)
+        return 0;
+    if (h->all)
+        fprintf(h->all, "%s\t%.*s\n", esc_entity, (int)len, line);
+    if (listed < h->limit) {
+        st = tt_buf_puts(&h->text, esc_entity);
+        if (!st) st = tt_buf_putc(&h->text, '\t');
+        if (!st) st = tt_buf_append(&h->text, line, len);
+        if (!st) st = tt_buf_putc(&h->text, '\n');
+        h->rows++;
+    }
+    return !st;
+}
+
+/* Reads search's table (raw_path): counts every hit by entity, period and
+ * rule, keeps the first `limit` hits of each entity for the page, and writes
+ * all hits with their entity and period to path. Returns 1 when the
+ * watch-list hit, 0 when it did not, -1 on a problem (printed). */
+static int hits_with_meta(const char *raw_path, const char *path, doc_meta_fn fn, void *ctx,
+                          uint64_t limit, tables *tb)
+{
+    hits_stream h;
+    memset(&h, 0, sizeof h);
+    h.tb = tb;
+    h.meta = fn;
+    h.meta_ctx = ctx;
+    h.limit = limit;
+    tt_buf_init(&h.text, 0);
+    h.all = fopen(path, "wb");
+    int ok = h.all && each_line(raw_path, &tb->hits_comments, hits_line, &h);
+    if (h.all && fclose(h.all))
+        ok = 0;
     tt_error err;
     tt_error_init(&err);
-    FILE *f = st ? NULL : fopen(path, "wb");
-    int ok = f && fwrite(text.data, 1, text.len, f) == text.len;
-    if (f && fclose(f)) ok = 0;
-    int rows = ok && memchr(text.data, '\n', text.len) != text.data + text.len - 1;
-    if (ok && rows)
-        ok = tt_tsv_parse(text.data, text.len, path, &tb->hits, &err) == TT_OK;
+    if (ok && h.rows && tt_tsv_parse(h.text.data, h.text.len, path, &tb->hits, &err))
+        ok = 0;
     if (!ok)
         cli_error("%s: cannot write the hits with their periods", path);
-    tt_buf_release(&text);
-    tt_tsv_release(&raw);
-    return ok ? rows : -1;
+    tt_buf_release(&h.text);
+    if (!ok)
+        return -1;
+    tb->has_hits = h.rows > 0;
+    return tb->rules.n > 0;
+}
+
+typedef struct sentence_stream {
+    tables *tb;
+    uint64_t limit;       /* sentences listed per pair and kind of change */
+    long ce, cb, ct, ck;
+    tt_buf text;
+    size_t rows;
+} sentence_stream;
+
+static int sentence_line(void *vctx, const char *line, size_t len, int header)
+{
+    sentence_stream *ss = vctx;
+    tt_status st = TT_OK;
+    if (header) {
+        ss->ce = header_index(line, len, "entity");
+        ss->cb = header_index(line, len, "base");
+        ss->ct = header_index(line, len, "target");
+        ss->ck = header_index(line, len, "change");
+        if (ss->ce < 0 || ss->cb < 0 || ss->ct < 0 || ss->ck < 0) {
+            cli_error("the sentences table lacks a column");
+            return 0;
+        }
+    } else {
+        size_t el, bl, tl, kl;
+        const char *e = field(line, len, (size_t)ss->ce, &el);
+        const char *b = field(line, len, (size_t)ss->cb, &bl);
+        const char *t = field(line, len, (size_t)ss->ct, &tl);
+        const char *k = field(line, len, (size_t)ss->ck, &kl);
+        if (kl == 9 && !memcmp(k, "unchanged", 9))
+            return 1;
+        char key[1200], pe[400], pb[TT_PERIOD_TEXT_MAX * 4], pt[TT_PERIOD_TEXT_MAX * 4], pk[32];
+        unescape(e, el, pe, sizeof pe);
+        unescape(b, bl, pb, sizeof pb);
+        unescape(t, tl, pt, sizeof pt);
+        unescape(k, kl, pk, sizeof pk);
+        int n = snprintf(key, sizeof key, "%s\t%s\t%s\t%s", pe, pb, pt, pk);
+        if (n < 0 || (size_t)n >= sizeof key)
+            return 1;
+        uint64_t before = bump(ss->tb, key, (size_t)n);
+        if (before == UINT64_MAX)
+            return 0;
+        if (before >= ss->limit)
+            return 1;
+        ss->rows++;
+    }
+    st = tt_buf_append(&ss->text, line, len);
+    if (!st) st = tt_buf_putc(&ss->text, '\n');
+    return !st;
+}
+
+/* Reads the sentences table: counts the rows of each pair and kind of
+ * change, keeps the first `limit` of each for the page (unchanged ones are
+ * never listed). */
+static int read_sentences(const char *path, uint64_t limit, tables *tb)
+{
+    sentence_stream ss;
+    memset(&ss, 0, sizeof ss);
+    ss.tb = tb;
+    ss.limit = limit;
+    tt_buf_init(&ss.text, 0);
+    int ok = each_line(path, NULL, sentence_line, &ss);
+    tt_error err;
+    tt_error_init(&err);
+    if (ok && ss.rows && !tt_tsv_parse(ss.text.data, ss.text.len, path, &tb->sentences, &err))
+        tb->has_sentences = 1;
+    tt_buf_release(&ss.text);
+    return ok;
+}
+
+typedef struct mover_stream {
+    report_ctx *c;
+    tables *tb;
+    uint64_t top;
+    long ce, cb, ct, cd;
+    tt_buf header;
+    tt_buf text;          /* header and the rows the page lists */
+    size_t rows;
+    tt_buf pair;          /* the current pair's lines, each ending in '\n' */
+    char pair_key[1200];
+    FILE *f;              /* the current entity's movers file */
+    char entity[600];
+    int failed;
+} mover_stream;
+
+/* The page's rows of the pair held: its first `top` rises and last `top`
+ * falls (the table runs from the strongest rise to the strongest fall). */
+static int flush_pair(mover_stream *m)
+{
+    const char *p = m->pair.data, *end = m->pair.data + m->pair.len;
+    size_t nrise = 0, nfall = 0;
+    for (const char *q = p; q < end;) {
+        const char *nl = memchr(q, '\n', (size_t)(end - q));
+        size_t dl;
+        const char *d = field(q, (size_t)(nl - q), (size_t)m->cd, &dl);
+        if (dl == 4 && !memcmp(d, "fall", 4))
+            nfall++;
+        q = nl + 1;
+    }
+    size_t seen_fall = 0;
+    tt_status st = TT_OK;
+    for (const char *q = p; q < end && !st;) {
+        const char *nl = memchr(q, '\n', (size_t)(end - q));
+        size_t dl;
+        const char *d = field(q, (size_t)(nl - q), (size_t)m->cd, &dl);
+        int rise = dl == 4 && !memcmp(d, "rise", 4), fall = dl == 4 && !memcmp(d, "fall", 4);
+        int keep = (rise && nrise < m->top) || (fall && seen_fall + m->top >= nfall);
+        nrise += rise;
+        seen_fall += fall;
+        if (keep) {
+            st = tt_buf_append(&m->text, q, (size_t)(nl - q) + 1);
+            m->rows++;
+        }
+        q = nl + 1;
+    }
+    tt_buf_reset(&m->pair);
+    return !st;
+}
+
+static int mover_line(void *vctx, const char *line, size_t len, int header)
+{
+    mover_stream *m = vctx;
+    if (header) {
+        m->ce = header_index(line, len, "entity");
+        m->cb = header_index(line, len, "base");
+        m->ct = header_index(line, len, "target");
+        m->cd = header_index(line, len, "direction");
+        if (m->ce < 0 || m->cb < 0 || m->ct < 0 || m->cd < 0) {
+            cli_error("the movers table lacks a column");
+            return 0;
+        }
+        return !tt_buf_append(&m->header, line, len) && !tt_buf_putc(&m->header, '\n') &&
+               !tt_buf_append(&m->text, m->header.data, m->header.len);
+    }
+    size_t el, bl, tl;
+    const char *e = field(line, len, (size_t)m->ce, &el);
+    const char *b = field(line, len, (size_t)m->cb, &bl);
+    const char *t = field(line, len, (size_t)m->ct, &tl);
+    char key[1200];
+    snprintf(key, sizeof key, "%.*s\t%.*s\t%.*s", (int)el, e, (int)bl, b, (int)tl, t);
+    if (strcmp(key, m->pair_key)) {
+        if (!flush_pair(m))
+            return 0;
+        snprintf(m->pair_key, sizeof m->pair_key, "%s", key);
+    }
+    char entity[600];
+    unescape(e, el, entity, sizeof entity);
+    if (!m->f || strcmp(entity, m->entity)) {
+        /* the next entity's own file, for its pictures */
+        if (m->f && fclose(m->f))
+            return 0;
+        m->f = NULL;
+        char name[64], path[TT_META_PATH_MAX];
+        snprintf(name, sizeof name, "movers-%zu.tsv", m->tb->mover_entities.n + 1);
+        int known = strv_has(&m->tb->mover_entities, entity);
+        if (!table_path(m->c, name, path, sizeof path) ||
+            (!known && (!strv_push(&m->tb->mover_entities, entity, 1) ||
+                        !strv_push(&m->tb->mover_files, path, 1))))
+            return 0;
+        if (known) {
+            for (size_t i = 0; i < m->tb->mover_entities.n; i++)
+                if (!strcmp(m->tb->mover_entities.v[i], entity))
+                    snprintf(path, sizeof path, "%s", m->tb->mover_files.v[i]);
+            m->f = fopen(path, "ab");
+        } else {
+            m->f = fopen(path, "wb");
+            if (m->f)
+                fwrite(m->header.data, 1, m->header.len, m->f);
+        }
+        if (!m->f) {
+            cli_error("%s: cannot write: %s", path, strerror(errno));
+            return 0;
+        }
+        snprintf(m->entity, sizeof m->entity, "%s", entity);
+    }
+    fprintf(m->f, "%.*s\n", (int)len, line);
+    return !tt_buf_append(&m->pair, line, len) && !tt_buf_putc(&m->pair, '\n');
+}
+
+/* Reads compare's movers table: each entity's rows into its own file (the
+ * pictures read those), and each pair's top rises and falls for the page. */
+static int read_movers(report_ctx *c, const char *path, uint64_t top, tables *tb)
+{
+    mover_stream m;
+    memset(&m, 0, sizeof m);
+    m.c = c;
+    m.tb = tb;
+    m.top = top;
+    tt_buf_init(&m.header, 0);
+    tt_buf_init(&m.text, 0);
+    tt_buf_init(&m.pair, 0);
+    int ok = each_line(path, NULL, mover_line, &m) && flush_pair(&m);
+    if (m.f && fclose(m.f))
+        ok = 0;
+    tt_error err;
+    tt_error_init(&err);
+    if (ok && m.rows && !tt_tsv_parse(m.text.data, m.text.len, path, &tb->movers, &err))
+        tb->has_movers = 1;
+    tt_buf_release(&m.header);
+    tt_buf_release(&m.text);
+    tt_buf_release(&m.pair);
+    return ok;
 }
 
 /* tone-lines.tsv: the tone table reshaped for a line chart (entity, term =
@@ -1062,6 +1433,11 @@ static void tables_release(tables *tb)
     tt_tsv_release(&tb->sentences);
     tt_tsv_release(&tb->hits);
     tt_buf_release(&tb->hits_comments);
+    strv_release(&tb->mover_entities);
+    strv_release(&tb->mover_files);
+    strv_release(&tb->rules);
+    tt_termtable_free(tb->counts);
+    tb->counts = NULL;
 }
 
 static void u64s(char *out, size_t size, uint64_t v)
@@ -1093,7 +1469,7 @@ static int run_tables(report_ctx *c, const report_opts *o, tables *tb, const str
             table_path(c, "hits-raw.tsv", raw, sizeof raw) && args_end(c, &a, raw, 0) &&
             strv_push(&a, "--", 0) && args_add(&a, paths) && run(c, tt_cmd_search, &a, raw) &&
             table_path(c, "hits.tsv", path, sizeof path)) {
-            int got = hits_with_meta(raw, path, meta_fn, meta_ctx, tb);
+            int got = hits_with_meta(raw, path, meta_fn, meta_ctx, o->hits, tb);
             tb->has_hits = got == 1;
             tb->hits_ran = got >= 0;
         }
@@ -1116,10 +1492,12 @@ static int run_tables(report_ctx *c, const report_opts *o, tables *tb, const str
         if (!ok) break;
         char *out = k ? tb->movers_path : path;
         ok = table_path(c, k ? "movers.tsv" : "summary.tsv", out, TT_META_PATH_MAX) &&
-             args_end(c, &a, out, !sd) &&
-             table_run(c, tt_cmd_compare, &a, k ? "movers.tsv" : "summary.tsv", out,
-                       TT_META_PATH_MAX, k ? &tb->movers : &tb->summary,
-                       k ? &tb->has_movers : &tb->has_summary);
+             args_end(c, &a, out, !sd);
+        if (ok && k == 0)
+            ok = table_run(c, tt_cmd_compare, &a, "summary.tsv", out, TT_META_PATH_MAX,
+                           &tb->summary, &tb->has_summary);
+        else if (ok)
+            ok = run(c, tt_cmd_compare, &a, out) && read_movers(c, out, o->top, tb);
         if (ok && !k && !tb->has_summary && sd) {
             cli_error("%s: the comparison wrote no row", out);
             ok = 0;
@@ -1208,8 +1586,9 @@ static int run_tables(report_ctx *c, const report_opts *o, tables *tb, const str
               args_add(&a, &c->common) && table_path(c, name, path, sizeof path) &&
               args_end(c, &a, path, !sd)))
             break;
-        if (!table_run(c, tt_cmd_changes, &a, name, path, sizeof path,
-                       k ? &tb->sentences : &tb->changes, k ? &tb->has_sentences : &tb->has_changes))
+        if (k ? !(run(c, tt_cmd_changes, &a, path) && read_sentences(path, o->sentences, tb))
+              : !table_run(c, tt_cmd_changes, &a, name, path, sizeof path, &tb->changes,
+                           &tb->has_changes))
             break;
     }
     strv_release(&a);
@@ -1407,6 +1786,7 @@ int tt_cmd_report(int argc, char **argv)
     tt_tsv_init(&tb.sentences);
     tt_tsv_init(&tb.hits);
     tt_buf_init(&tb.hits_comments, 0);
+    tb.counts = tt_termtable_new();
     page pg;
     memset(&pg, 0, sizeof pg);
     tt_report_init(&pg.rep);
@@ -1418,6 +1798,8 @@ int tt_cmd_report(int argc, char **argv)
     memset(&out, 0, sizeof out);
     tt_error err;
     tt_error_init(&err);
+    if (!tb.counts)
+        goto oom;
 
     optind = 1;
     while ((opt = getopt_long(argc, argv, "o:j:qh", longopts, NULL)) != -1) {
