@@ -32,6 +32,7 @@ void tt_report_init(tt_report *r)
     tt_buf_init(&r->contents, TT_LIMIT_REPORT_BYTES);
     r->figures = 0;
     r->anchors = 0;
+    r->chapters = 0;
 }
 
 void tt_report_release(tt_report *r)
@@ -45,6 +46,8 @@ tt_status tt_report_heading(tt_report *r, int level, const char *text)
     if (level < 1 || level > 3)
         return TT_EINVAL;
     unsigned id = ++r->anchors;
+    if (level == 1)
+        r->chapters++;
     tt_status st = tt_buf_printf(&r->body, "<h%d id=\"part-%u\">", level + 1, id);
     if (!st) st = tt_svg_escape(&r->body, text, strlen(text));
     if (!st) st = tt_buf_printf(&r->body, "</h%d>\n", level + 1);
@@ -265,7 +268,15 @@ tt_status tt_report_write(const tt_report *r, const char *title, const char *sub
     if (!st) st = tt_buf_puts(out, "</p>\n</header>\n");
     if (!st && r->contents.len) {
         st = tt_buf_puts(out, "<nav aria-label=\"Contents\">\n<h2>Contents</h2>\n<ul>\n");
-        if (!st) st = tt_buf_append(out, r->contents.data, r->contents.len);
+        /* one entry a line; past three chapters only the chapters */
+        const char *p = r->contents.data, *end = p + r->contents.len;
+        while (!st && p < end) {
+            const char *nl = memchr(p, '\n', (size_t)(end - p));
+            size_t n = nl ? (size_t)(nl - p) + 1 : (size_t)(end - p);
+            if (r->chapters <= 3 || !(n > 15 && !memcmp(p, "<li class=\"toc2\"", 15)))
+                st = tt_buf_append(out, p, n);
+            p += n;
+        }
         if (!st) st = tt_buf_puts(out, "</ul>\n</nav>\n");
     }
     if (!st) st = tt_buf_puts(out, "<main>\n");

@@ -317,6 +317,46 @@ static void test_demo_report(void **state)
     rmdir(dir);
 }
 
+/* Several entities: a table of them, most rewritten first, and contents
+ * that list the chapters only. */
+static void test_several_entities(void **state)
+{
+    (void)state;
+    char dir[] = TT_TEST_TMP "tt-report-XXXXXX";
+    assert_non_null(mkdtemp(dir));
+    char path[256], args[1024];
+    snprintf(path, sizeof path, "%s/q.html", dir);
+    snprintf(args, sizeof args,
+             "report --manifest demo-corpus/manifest.tsv --kinds quarterly-report --text -q -o %s",
+             path);
+    int st;
+    free(tt_test_run(args, 1, &st));
+    assert_int_equal(st, 0);
+    size_t n;
+    char *page = slurp(path, &n);
+    assert_non_null(page);
+    xmlDocPtr doc = parse(page, n);
+    assert_non_null(doc);
+    assert_int_equal(count_xpath(doc, "//h:h2[.='Entities at a glance']"), 1);
+    assert_int_equal(count_xpath(doc, "//h:table[starts-with(h:caption, 'Most rewritten first')]"
+                                      "/h:tbody/h:tr"),
+                     2);
+    /* most rewritten first: the first row's share is the larger */
+    char *a = xpath_text(doc, "//h:table[starts-with(h:caption, 'Most rewritten first')]"
+                              "/h:tbody/h:tr[1]/h:td[6]");
+    char *b = xpath_text(doc, "//h:table[starts-with(h:caption, 'Most rewritten first')]"
+                              "/h:tbody/h:tr[2]/h:td[6]");
+    assert_true(strtod(a, NULL) >= strtod(b, NULL));
+    free(a);
+    free(b);
+    assert_int_equal(count_xpath(doc, "//h:nav//h:li[@class='toc2']"), 0);
+    assert_int_equal(count_xpath(doc, "//h:nav//h:li[@class='toc1']"), 4);
+    xmlFreeDoc(doc);
+    free(page);
+    unlink(path);
+    rmdir(dir);
+}
+
 static int folder_count(const char *prefix)
 {
     DIR *d = opendir("/tmp");
@@ -483,6 +523,7 @@ int main(void)
         cmocka_unit_test(test_figures_get_their_own_ids),
         cmocka_unit_test(test_table_names_a_missing_column),
         cmocka_unit_test(test_demo_report),
+        cmocka_unit_test(test_several_entities),
         cmocka_unit_test(test_hostile_documents_and_failures),
         cmocka_unit_test(test_chromium_opens_the_report),
     };

@@ -18,6 +18,7 @@ typedef struct tt_report {
     tt_buf contents;
     unsigned figures;  /* pictures so far: their ids get this number */
     unsigned anchors;  /* headings so far: their anchors get this number */
+    unsigned chapters; /* level-1 headings so far */
 } tt_report;
 
 /* A report owns its buffers; the caller frees them with tt_report_release().
@@ -26,7 +27,9 @@ void tt_report_init(tt_report *r);
 void tt_report_release(tt_report *r);
 
 /* A heading of level 1 (a chapter), 2 or 3; levels 1 and 2 are listed in
- * the table of contents. text is escaped. */
+ * the table of contents (level 2 only while the page has at most three
+ * chapters, so an archive's contents stay one screen of entities). text is
+ * escaped. */
 tt_status tt_report_heading(tt_report *r, int level, const char *text);
 
 /* A paragraph of text (escaped); with note set, in the muted style of an

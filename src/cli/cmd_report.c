@@ -1597,6 +1597,122 @@ static int run_tables(report_ctx *c, const report_opts *o, tables *tb, const str
 
 /* ---- chapters ------------------------------------------------------------ */
 
+/* One row per entity, for a report of several: how much each rewrote
+ * (the largest share of new-sentence words between consecutive periods, and
+ * the lowest cosine similarity), its watch-list hits; most rewritten first. */
+typedef struct entity_row {
+    const char *entity;
+    size_t docs, periods;
+    char first[TT_PERIOD_TEXT_MAX], last[TT_PERIOD_TEXT_MAX];
+    double max_new, min_cos;
+    char new_at[48], cos_at[48];
+    uint64_t hits;
+} entity_row;
+
+static int by_rewrite(const void *pa, const void *pb)
+{
+    const entity_row *a = pa, *b = pb;
+    double x = isnan(a->max_new) ? -1 : a->max_new, y = isnan(b->max_new) ? -1 : b->max_new;
+    if (x != y)
+        return x > y ? -1 : 1;
+    return strcmp(a->entity, b->entity);
+}
+
+static void entities_table(page *p, tables *tb, const series *s)
+{
+    size_t n = s->entities.n;
+    entity_row *rows = tt_calloc(n + 1, sizeof *rows);
+    if (!rows) {
+        p->failed = 1;
+        return;
+    }
+    for (size_t i = 0; i < n; i++) {
+        entity_row *r = &rows[i];
+        r->entity = s->entities.v[i];
+        r->max_new = r->min_cos = NAN;
+        tt_period per[512];
+        r->periods = entity_periods(s, r->entity, per, 512);
+        if (r->periods) {
+            tt_period_format(&per[0], r->first, sizeof r->first);
+            tt_period_format(&per[r->periods - 1], r->last, sizeof r->last);
+        }
+        for (size_t d = 0; d < s->ndocs; d++)
+            r->docs += !strcmp(s->m.docs[s->docs[d]].entity, r->entity);
+        for (size_t k = 0; k < r->periods; k++) {
+            char pt[TT_PERIOD_TEXT_MAX];
+            tt_period_format(&per[k], pt, sizeof pt);
+            for (size_t ru = 0; ru < tb->rules.n; ru++)
+                r->hits += count_of(tb, r->entity, pt, tb->rules.v[ru], NULL);
+        }
+        const tt_tsv *sets[2] = { tb->has_summary ? &tb->summary : NULL,
+                                  tb->has_changes ? &tb->changes : NULL };
+        for (int k = 0; k < 2; k++) {
+            const tt_tsv *t = sets[k];
+            if (!t)
+                continue;
+            long ce = tt_tsv_column(t, "entity"), cb = tt_tsv_column(t, "base"),
+                 ct = tt_tsv_column(t, "target"),
+                 cv = tt_tsv_column(t, k ? "new_word_share" : "cosine");
+            for (size_t q = 0; cv >= 0 && q < t->nrows; q++) {
+                double v;
+                if (strcmp(cellc(t, q, ce), r->entity) || !tt_tsv_number(t, q, (size_t)cv, &v) ||
+                    isnan(v))
+                    continue;
+                double *best = k ? &r->max_new : &r->min_cos;
+                if (isnan(*best) || (k ? v > *best : v < *best)) {
+                    *best = v;
+                    snprintf(k ? r->new_at : r->cos_at, sizeof r->new_at, "%s \xE2\x86\x92 %s",
+                             cellc(t, q, cb), cellc(t, q, ct));
+                }
+            }
+        }
+    }
+    qsort(rows, n, sizeof *rows, by_rewrite);
+    static const char *const cols[] = { "entity", "documents", "periods", "first", "last",
+                                        "most_new", "at", "lowest_cosine", "where",
+                                        "watch_hits" };
+    size_t nc = tb->hits_ran ? 10 : 9;
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    tt_table_writer w;
+    tt_status st = tt_table_begin(&w, TT_FORMAT_TSV, &text, cols, nc, 1);
+    for (size_t i = 0; i < n && !st; i++) {
+        const entity_row *r = &rows[i];
+        st = tt_table_cstr(&w, r->entity);
+        if (!st) st = tt_table_u64(&w, r->docs);
+        if (!st) st = tt_table_u64(&w, r->periods);
+        if (!st) st = tt_table_cstr(&w, r->first);
+        if (!st) st = tt_table_cstr(&w, r->last);
+        if (!st) st = isnan(r->max_new) ? tt_table_cstr(&w, "") : tt_table_fixed(&w, r->max_new, 4);
+        if (!st) st = tt_table_cstr(&w, r->new_at);
+        if (!st) st = isnan(r->min_cos) ? tt_table_cstr(&w, "") : tt_table_fixed(&w, r->min_cos, 4);
+        if (!st) st = tt_table_cstr(&w, r->cos_at);
+        if (!st && nc == 10) st = tt_table_u64(&w, r->hits);
+        if (!st) st = tt_table_end_row(&w);
+    }
+    tt_tsv t;
+    tt_tsv_init(&t);
+    if (!st) st = tt_tsv_parse(text.data, text.len, "entities", &t, &p->err);
+    if (!st) {
+        static const tt_report_column rc[] = {
+            { "entity", NULL, 0 },        { "documents", NULL, 0 },
+            { "periods", NULL, 0 },       { "first", NULL, 0 },
+            { "last", NULL, 0 },          { "most_new", "most new-sentence words", 0 },
+            { "at", "between", 0 },       { "lowest_cosine", "lowest cosine prev.", 0 },
+            { "where", "between", 0 },    { "watch_hits", "watch-list hits", 0 },
+        };
+        pg_heading(p, 1, "Entities at a glance");
+        pg_table(p, &t, "entities", rc, nc, NULL, t.nrows,
+                 "Most rewritten first: the largest share of a period's words in sentences added "
+                 "or reworded since the period before");
+    } else {
+        p->failed = 1;
+    }
+    tt_tsv_release(&t);
+    tt_buf_release(&text);
+    tt_free(rows);
+}
+
 /* One entity's chapter of a series. */
 static void entity_chapter(page *p, tables *tb, const report_opts *o, const series *s,
                            const char *entity, unsigned *pairno)
@@ -2014,6 +2130,8 @@ int tt_cmd_report(int argc, char **argv)
                  s.ndocs, s.ndocs == 1 ? "" : "s", s.entities.n, s.entities.n == 1 ? "y" : "ies",
                  kinds ? "; kinds " : "", kinds ? kinds : "",
                  manifest ? manifest : layout ? "the folder layout" : "the submission headers");
+        if (s.entities.n > 1)
+            entities_table(&pg, &tb, &s);
         for (size_t i = 0; i < s.entities.n && !pg.failed; i++)
             entity_chapter(&pg, &tb, &o, &s, s.entities.v[i], &pairno);
     }
