@@ -440,6 +440,14 @@ static void test_hostile_documents_and_failures(void **state)
     assert_non_null(strstr(msg, "missing.txt"));
     free(msg);
     assert_int_equal(access(out, F_OK), 0);
+    /* and the page says so, once */
+    page = slurp(out, &n);
+    doc = parse(page, n);
+    assert_non_null(doc);
+    assert_int_equal(count_xpath(doc, "//h:h2[.='Problems met']"), 1);
+    assert_int_equal(count_xpath(doc, "//h:p[contains(., 'missing.txt')]"), 1);
+    xmlFreeDoc(doc);
+    free(page);
     assert_int_equal(folder_count("termtide-report-"), before);
     unlink(out);
     unlink(a);

@@ -185,6 +185,7 @@ typedef struct report_ctx {
     strv common;                  /* the subset changes and search take */
     strv common_search;           /* what search takes besides: -j */
     strv seen;                    /* messages already shown */
+    strv problems;                /* errors among them, for the page */
     char last_error[600];         /* the last error a command printed */
     int trouble;                  /* some command reported trouble */
     int text;                     /* pictures with <text> elements (--text) */
@@ -217,6 +218,15 @@ static void relay(report_ctx *c, const char *log)
         fputs(line, stderr);
         if (c->seen.n < 10000)
             strv_push(&c->seen, line, 1);
+        const char *e = strstr(line, ": error: ");
+        if (e && c->problems.n < 200) {
+            char msg[4096];
+            snprintf(msg, sizeof msg, "%s", e + 9);
+            size_t n = strlen(msg);
+            while (n && (msg[n - 1] == '\n' || msg[n - 1] == '\r'))
+                msg[--n] = '\0';
+            strv_push(&c->problems, msg, 1);
+        }
     }
     fclose(f);
 }
@@ -2111,6 +2121,14 @@ int tt_cmd_report(int argc, char **argv)
     if (rl >= sizeof reading) reading[sizeof reading - 1] = '\0';
     snprintf(gen, sizeof gen, "termtide %s", TT_VERSION);
     unsigned pairno = 0;
+    if (c.problems.n) {
+        pg_heading(&pg, 1, "Problems met");
+        pg_para(&pg, 0,
+                "The commands behind this page reported these problems (a document named here "
+                "was left out of every figure):");
+        for (size_t i = 0; i < c.problems.n; i++)
+            pg_para(&pg, 1, "%s", c.problems.v[i]);
+    }
     if (sd.base.n) {
         snprintf(title, sizeof title, "%s", o.title ? o.title : "What changed between two sides");
         snprintf(subtitle, sizeof subtitle, "%zu path%s read.", paths.n, paths.n == 1 ? "" : "s");
@@ -2177,5 +2195,6 @@ out:
     strv_release(&c.common);
     strv_release(&c.common_search);
     strv_release(&c.seen);
+    strv_release(&c.problems);
     return rc;
 }
