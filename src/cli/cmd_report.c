@@ -924,7 +924,7 @@ static void hits_part(page *p, tables *tb, const report_opts *o, const char *ent
     static const tt_report_column hit_cols[] = {
         { "period", NULL, 0 },    { "rule", NULL, 0 },
         { "before", "", TT_REPORT_RIGHT }, { "match", "hit", TT_REPORT_MARK },
-        { "after", "", 0 },       { "document", NULL, 0 }, { "line", NULL, 0 },
+        { "after", "", TT_REPORT_WRAP }, { "document", NULL, 0 }, { "line", NULL, 0 },
     };
     (void)o;
     char cap_[200];
