@@ -189,7 +189,6 @@ typedef struct report_ctx {
     char last_error[600];         /* the last error a command printed */
     int trouble;                  /* some command reported trouble */
     int text;                     /* pictures with <text> elements (--text) */
-    unsigned rng;
 } report_ctx;
 
 static int path_in(const report_ctx *c, const char *name, char *out, size_t size)
@@ -840,7 +839,7 @@ static void pair_part(page *p, tables *tb, const report_opts *o, const char *ent
 
 /* The watch-list part of an entity: hits per rule and period (from the
  * counts), then the listed hits in context. */
-static void hits_part(page *p, tables *tb, const report_opts *o, const char *entity,
+static void hits_part(page *p, tables *tb, const char *entity,
                       char (*pnames)[TT_PERIOD_TEXT_MAX], size_t np)
 {
     const tt_tsv *t = &tb->hits;
@@ -926,7 +925,6 @@ static void hits_part(page *p, tables *tb, const report_opts *o, const char *ent
         { "before", "", TT_REPORT_RIGHT }, { "match", "hit", TT_REPORT_MARK },
         { "after", "", TT_REPORT_WRAP }, { "document", NULL, 0 }, { "line", NULL, 0 },
     };
-    (void)o;
     char cap_[200];
     snprintf(cap_, sizeof cap_, "Hits in context: %zu of %llu, in document order", n,
              (unsigned long long)all);
@@ -1787,7 +1785,7 @@ static void entity_chapter(page *p, tables *tb, const report_opts *o, const seri
         }
     }
     if (tb->hits_ran)
-        hits_part(p, tb, o, entity, names, np);
+        hits_part(p, tb, entity, names, np);
     size_t npairs = 0;
     if (tb->has_summary) {
         const tt_tsv *t = &tb->summary;
@@ -1821,7 +1819,7 @@ static void sides_chapter(page *p, tables *tb, const report_opts *o, const sides
             "documents: paths given for the side; words: terms counted after stop-words and "
             "filters; tone columns: lexicon words per 1,000 words.");
     if (tb->hits_ran)
-        hits_part(p, tb, o, "", names, 2);
+        hits_part(p, tb, "", names, 2);
     unsigned k = 1;
     pair_part(p, tb, o, "", "base", "target", k);
 }
