@@ -236,20 +236,6 @@ static void test_bars_against_table(void **state)
     unlink(TMP "bars.svg");
 }
 
-static char *slurp(const char *path)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *d = malloc((size_t)n + 1);
-    size_t k = fread(d, 1, (size_t)n, f);
-    d[k] = '\0';
-    fclose(f);
-    return d;
-}
-
 static void test_heatmap_against_table(void **state)
 {
     (void)state;
@@ -265,13 +251,13 @@ static void test_calendar_gaps(void **state)
 {
     (void)state;
     chart("heatmap", "trend.tsv", "", TMP "gap.svg");
-    char *d = slurp(TMP "gap.svg");
+    char *d = tt_test_read(TMP "gap.svg", NULL);
     assert_non_null(strstr(d, "aria-label=\"2024-Q4\""));
     assert_non_null(strstr(d, "hatched: no documents"));
     assert_null(strstr(d, ", 2024-Q4: "));
     free(d);
     chart("lines", "trend.tsv", "", TMP "gap.svg");
-    d = slurp(TMP "gap.svg");
+    d = tt_test_read(TMP "gap.svg", NULL);
     assert_non_null(strstr(d, "aria-label=\"2024-Q4\""));
     assert_non_null(strstr(d, "stroke-dasharray"));
     free(d);

@@ -756,22 +756,6 @@ static int run(const char *args, char *out, size_t cap)
     return WIFEXITED(st) ? WEXITSTATUS(st) : -1;
 }
 
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return NULL;
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *d = malloc((size_t)n + 1);
-    size_t k = fread(d, 1, (size_t)n, f);
-    d[k] = '\0';
-    fclose(f);
-    *len = k;
-    return d;
-}
-
 /* Golden picture: the same table and seed give these exact bytes (DejaVu
  * Sans 2.37 and FreeType of Debian 12). TT_REGEN=1 rewrites the file. */
 static void test_golden(void **state)
@@ -789,7 +773,7 @@ static void test_golden(void **state)
     if (getenv("TT_REGEN"))
         return;
     size_t la = 0, lb = 0;
-    char *a = slurp(golden, &la), *b = slurp(got, &lb);
+    char *a = tt_test_slurp(golden, &la), *b = tt_test_slurp(got, &lb);
     assert_non_null(a);
     assert_non_null(b);
     assert_int_equal(la, lb);
@@ -817,7 +801,7 @@ static void test_cli_tables(void **state)
     snprintf(args, sizeof args, "cloud -q --top 60 demo-corpus/hollowmere -o %s", svg);
     assert_int_equal(run(args, out, sizeof out), 0);
     size_t len;
-    char *d = slurp(svg, &len);
+    char *d = tt_test_slurp(svg, &len);
     assert_non_null(d);
     xmlDocPtr x = parse_svg(d, len);
     assert_non_null(x);
@@ -830,7 +814,7 @@ static void test_cli_tables(void **state)
     snprintf(args, sizeof args, "cloud --from %s --top 60 -o %s", tsv, svg);
     assert_int_equal(run(args, out, sizeof out), 0);
     size_t len2;
-    char *d2 = slurp(svg, &len2);
+    char *d2 = tt_test_slurp(svg, &len2);
     assert_non_null(d2);
     assert_non_null(strstr(d2, "Weight: count"));
     free(d2);
@@ -841,7 +825,7 @@ static void test_cli_tables(void **state)
     assert_int_equal(run(args, out, sizeof out), 0);
     snprintf(args, sizeof args, "cloud --from %s --top 40 -o %s", tsv, svg);
     assert_int_equal(run(args, out, sizeof out), 0);
-    d2 = slurp(svg, &len2);
+    d2 = tt_test_slurp(svg, &len2);
     assert_non_null(d2);
     assert_non_null(strstr(d2, "Change cloud"));
     assert_non_null(strstr(d2, "Weight: log_ratio"));

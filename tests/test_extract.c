@@ -97,23 +97,6 @@ static void expect_text(const char *text, const char *want)
     tt_blocks_release(&b);
 }
 
-static char *read_file(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    assert_int_equal(fseek(f, 0, SEEK_END), 0);
-    long n = ftell(f);
-    assert_true(n >= 0);
-    rewind(f);
-    char *data = malloc((size_t)n + 1);
-    assert_non_null(data);
-    assert_int_equal(fread(data, 1, (size_t)n, f), (size_t)n);
-    data[n] = '\0';
-    fclose(f);
-    *len = (size_t)n;
-    return data;
-}
-
 static double now_seconds(void)
 {
     struct timespec ts;
@@ -398,7 +381,7 @@ static void test_html_inline_xbrl_fixture(void **state)
 {
     (void)state;
     size_t len;
-    char *doc = read_file("tests/fixtures/extract/inline_xbrl.xhtml", &len);
+    char *doc = tt_test_read("tests/fixtures/extract/inline_xbrl.xhtml", &len);
     tt_blocks b;
     tt_error err;
     char got[4096];

@@ -25,30 +25,6 @@ static tt_termtable *new_set(void)
     return t;
 }
 
-/* Reads a whole file with stdio, for comparing with the compiled-in copy. */
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        fail_msg("cannot open %s (run the tests from the repository root)", path);
-    size_t cap = 1 << 16, n = 0;
-    char *p = malloc(cap + 1);
-    assert_non_null(p);
-    size_t k;
-    while ((k = fread(p + n, 1, cap - n, f)) > 0) {
-        n += k;
-        if (n == cap) {
-            cap *= 2;
-            p = realloc(p, cap + 1);
-            assert_non_null(p);
-        }
-    }
-    fclose(f);
-    p[n] = '\0';
-    *len = n;
-    return p;
-}
-
 static void test_builtin(void **state)
 {
     (void)state;
@@ -71,7 +47,7 @@ static void test_builtin(void **state)
         char path[256];
         snprintf(path, sizeof path, "stopwords/%s.txt", names[i]);
         size_t len;
-        char *file = slurp(path, &len);
+        char *file = tt_test_read(path, &len);
         const char *text = tt_builtin_stopwords(names[i]);
         assert_non_null(text);
         assert_int_equal(strlen(text), len);

@@ -33,22 +33,6 @@ typedef struct gcase {
     char *expected;
 } gcase;
 
-static char *slurp(const char *path)
-{
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return NULL;
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *b = malloc((size_t)n + 1);
-    if (fread(b, 1, (size_t)n, f) != (size_t)n)
-        n = 0;
-    b[n] = '\0';
-    fclose(f);
-    return b;
-}
-
 static void parse_case(char *text, gcase *c)
 {
     memset(c, 0, sizeof *c);
@@ -163,7 +147,7 @@ static void check_library(const gcase *c, const char *dir)
 
 static void run_case(const char *file)
 {
-    char *text = slurp(file);
+    char *text = tt_test_slurp(file, NULL);
     assert_non_null(text);
     gcase c;
     parse_case(text, &c);
@@ -185,7 +169,7 @@ static void run_case(const char *file)
     assert_true(WIFEXITED(st));
     char outp[1024];
     snprintf(outp, sizeof outp, "%s/out.txt", dir);
-    char *out = slurp(outp);
+    char *out = tt_test_slurp(outp, NULL);
     if (strcmp(out, c.expected) != 0) {
         print_error("case %s: output differs\n--- expected\n%s--- got\n%s", file, c.expected, out);
         fail();

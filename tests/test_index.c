@@ -41,23 +41,6 @@ static char *run(const char *cmd, int *status)
     return out;
 }
 
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    if (!f) {
-        *len = 0;
-        return NULL;
-    }
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *s = malloc((size_t)n + 1);
-    *len = fread(s, 1, (size_t)n, f);
-    s[*len] = '\0';
-    fclose(f);
-    return s;
-}
-
 /* The program's stdout and stderr (less the timing of the summary line)
  * for one command line, into files under tmpdir named by tag. */
 static int tt(const char *args, const char *tag)
@@ -75,7 +58,7 @@ static int same_file(const char *a, const char *b)
     snprintf(pa, sizeof pa, "%s/%s", tmpdir, a);
     snprintf(pb, sizeof pb, "%s/%s", tmpdir, b);
     size_t na, nb;
-    char *x = slurp(pa, &na), *y = slurp(pb, &nb);
+    char *x = tt_test_slurp(pa, &na), *y = tt_test_slurp(pb, &nb);
     int same = x && y && na == nb && !memcmp(x, y, na);
     if (!same)
         print_message("%s and %s differ (%zu and %zu bytes)\n", a, b, na, nb);
@@ -111,7 +94,7 @@ static int same_notes(const char *a, const char *b)
     snprintf(pa, sizeof pa, "%s/%s", tmpdir, a);
     snprintf(pb, sizeof pb, "%s/%s", tmpdir, b);
     size_t na, nb;
-    char *x = slurp(pa, &na), *y = slurp(pb, &nb);
+    char *x = tt_test_slurp(pa, &na), *y = tt_test_slurp(pb, &nb);
     int same = x && y;
     if (same) {
         drop_summary(x);
@@ -201,7 +184,7 @@ static void test_same_as_files(void **state)
     char p[512];
     snprintf(p, sizeof p, "%s/stem.err", tmpdir);
     size_t n;
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "stem=0"));
     assert_non_null(strstr(err, "stem=1"));
     free(err);
@@ -210,7 +193,7 @@ static void test_same_as_files(void **state)
              "demo-corpus/hollowmere/2024-Q1-call-transcript.txt", tmpdir);
     assert_int_equal(tt(args, "partial"), 2);
     snprintf(p, sizeof p, "%s/partial.err", tmpdir);
-    err = slurp(p, &n);
+    err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "demo-corpus/manifest.tsv: not in the index"));
     free(err);
 }
@@ -237,7 +220,7 @@ static void test_incremental(void **state)
     snprintf(args, sizeof args, "index %s/inc.db %s/docs", tmpdir, tmpdir);
     assert_int_equal(tt(args, "i1"), 0);
     snprintf(p, sizeof p, "%s/i1.err", tmpdir);
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "5 new, 0 changed, 0 unchanged, 0 removed"));
     free(err);
     /* change one, add one, remove one */
@@ -248,7 +231,7 @@ static void test_incremental(void **state)
     snprintf(args, sizeof args, "index --prune %s/inc.db %s/docs", tmpdir, tmpdir);
     assert_int_equal(tt(args, "i2"), 0);
     snprintf(p, sizeof p, "%s/i2.err", tmpdir);
-    err = slurp(p, &n);
+    err = tt_test_slurp(p, &n);
     if (!strstr(err, "1 new, 1 changed, 3 unchanged, 1 removed"))
         fail_msg("second run: %s", err);
     free(err);
@@ -258,7 +241,7 @@ static void test_incremental(void **state)
     assert_int_equal(tt(args, "db"), 0);
     assert_true(same_file("files.out", "db.out"));
     snprintf(p, sizeof p, "%s/db.out", tmpdir);
-    char *out = slurp(p, &n);
+    char *out = tt_test_slurp(p, &n);
     assert_non_null(strstr(out, "\tshrank\t"));
     assert_null(strstr(out, "\trose\t"));
     assert_null(strstr(out, "2024-Q1-call"));
@@ -466,7 +449,7 @@ static void test_not_an_index(void **state)
     assert_int_equal(system(cmd), 0);
     const char *files[] = { path, trunc, other };
     for (size_t i = 0; i < 3; i++) {
-        char *before = slurp(files[i], &n0);
+        char *before = tt_test_slurp(files[i], &n0);
         for (int reader = 0; reader < 2; reader++) {
             if (reader)
                 snprintf(args, sizeof args, "count --db %s", files[i]);
@@ -474,13 +457,13 @@ static void test_not_an_index(void **state)
                 snprintf(args, sizeof args, "index %s demo-corpus/ambleworth", files[i]);
             assert_int_equal(tt(args, "bad"), 2);
             snprintf(p, sizeof p, "%s/bad.err", tmpdir);
-            char *err = slurp(p, &n);
+            char *err = tt_test_slurp(p, &n);
             if (!strstr(err, files[i]) ||
                 !(strstr(err, "not a termtide index") || strstr(err, "malformed")))
                 fail_msg("%s: %s", files[i], err);
             free(err);
         }
-        char *after = slurp(files[i], &n1);
+        char *after = tt_test_slurp(files[i], &n1);
         assert_true(n0 == n1 && !memcmp(before, after, n0));
         free(before);
         free(after);
@@ -505,7 +488,7 @@ static void test_locked(void **state)
     snprintf(args, sizeof args, "index %s demo-corpus/ambleworth", db);
     assert_int_equal(tt(args, "second"), 2);
     snprintf(p, sizeof p, "%s/second.err", tmpdir);
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "another termtide run is writing"));
     free(err);
     snprintf(args, sizeof args, "count --total-only --db %s", db);
@@ -535,7 +518,7 @@ static void test_readonly_dir(void **state)
                  "2> %s/ro.err", tt_test_bin(), dir, tmpdir, tmpdir);
     int st = system(cmd);
     snprintf(p, sizeof p, "%s/ro.err", tmpdir);
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     if (strstr(err, "setpriv")) {
         print_message("skipped: cannot run as an unprivileged user here: %s\n", err);
         free(err);
@@ -581,7 +564,7 @@ static void test_merge(void **state)
              tmpdir, tmpdir);
     assert_int_equal(tt(args, "merge"), 0);
     snprintf(p, sizeof p, "%s/merge.err", tmpdir);
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "already merged (same bytes); counted once"));
     assert_non_null(strstr(err, "19 overlaps counted once"));
     free(err);
@@ -632,7 +615,7 @@ static void test_merge(void **state)
     snprintf(args, sizeof args, "merge --tables %s/cut.out", tmpdir);
     assert_int_equal(tt(args, "bad"), 2);
     snprintf(p, sizeof p, "%s/bad.err", tmpdir);
-    err = slurp(p, &n);
+    err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "cut.out: line 2: the table of"));
     free(err);
     /* a shard with other counting options */
@@ -642,7 +625,7 @@ static void test_merge(void **state)
              tmpdir, tmpdir, tmpdir, tmpdir);
     assert_int_equal(tt(args, "merge2"), 2);
     snprintf(p, sizeof p, "%s/merge2.err", tmpdir);
-    err = slurp(p, &n);
+    err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "stem.db: cannot be merged into"));
     /* the two good shards still merged: 19 files each */
     assert_non_null(strstr(err, "3 shards, 1 skipped; 38 files and 38 documents added"));
@@ -691,7 +674,7 @@ static void test_tone_db(void **state)
         snprintf(args, sizeof args, bad[i].args, tmpdir);
         assert_int_equal(tt(args, "bad"), 2);
         snprintf(p, sizeof p, "%s/bad.err", tmpdir);
-        char *err = slurp(p, &n);
+        char *err = tt_test_slurp(p, &n);
         if (!strstr(err, bad[i].message))
             fail_msg("%s: %s", args, err);
         free(err);
@@ -701,7 +684,7 @@ static void test_tone_db(void **state)
     snprintf(args, sizeof args, "tone --db %s/plain.db demo-corpus/hollowmere", tmpdir);
     assert_int_equal(tt(args, "bad"), 2);
     snprintf(p, sizeof p, "%s/bad.err", tmpdir);
-    char *err = slurp(p, &n);
+    char *err = tt_test_slurp(p, &n);
     assert_non_null(strstr(err, "holds no analysis"));
     free(err);
     /* a merge keeps the scores; a shard without them is refused */

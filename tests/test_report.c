@@ -41,23 +41,6 @@ static xmlDocPtr parse(const char *data, size_t len)
                          XML_PARSE_NONET | XML_PARSE_NOERROR | XML_PARSE_NOWARNING);
 }
 
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    if (!f)
-        return NULL;
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *b = malloc((size_t)n + 1);
-    assert_non_null(b);
-    assert_int_equal(fread(b, 1, (size_t)n, f), (size_t)n);
-    b[n] = '\0';
-    fclose(f);
-    *len = (size_t)n;
-    return b;
-}
-
 /* No script element and no on* attribute anywhere under n. */
 static void assert_inert(xmlNodePtr n)
 {
@@ -239,7 +222,7 @@ static void test_demo_report(void **state)
     free(tt_test_run(args, 1, &st));
     assert_int_equal(st, 0);
     size_t n, n2;
-    char *page = slurp(path, &n), *page2 = slurp(path2, &n2);
+    char *page = tt_test_slurp(path, &n), *page2 = tt_test_slurp(path2, &n2);
     assert_non_null(page);
     assert_non_null(page2);
     /* deterministic: the same bytes, whatever the threads */
@@ -288,7 +271,7 @@ static void test_demo_report(void **state)
     snprintf(args, sizeof args, "%s --text -o %s", demo_args, path2);
     free(tt_test_run(args, 1, &st));
     assert_int_equal(st, 0);
-    page2 = slurp(path2, &n2);
+    page2 = tt_test_slurp(path2, &n2);
     assert_non_null(page2);
     assert_true(n2 * 4 < n);
     doc = parse(page2, n2);
@@ -302,7 +285,7 @@ static void test_demo_report(void **state)
     snprintf(args, sizeof args, "%s --text --hits 2 --sentences 1 -o %s", demo_args, path2);
     free(tt_test_run(args, 1, &st));
     assert_int_equal(st, 0);
-    page2 = slurp(path2, &n2);
+    page2 = tt_test_slurp(path2, &n2);
     assert_non_null(page2);
     doc = parse(page2, n2);
     assert_non_null(doc);
@@ -333,7 +316,7 @@ static void test_several_entities(void **state)
     free(tt_test_run(args, 1, &st));
     assert_int_equal(st, 0);
     size_t n;
-    char *page = slurp(path, &n);
+    char *page = tt_test_slurp(path, &n);
     assert_non_null(page);
     xmlDocPtr doc = parse(page, n);
     assert_non_null(doc);
@@ -397,7 +380,7 @@ static void test_hostile_documents_and_failures(void **state)
     assert_int_equal(st, 0);
     free(msg);
     size_t n;
-    char *page = slurp(out, &n);
+    char *page = tt_test_slurp(out, &n);
     assert_non_null(page);
     xmlDocPtr doc = parse(page, n);
     assert_non_null(doc);
@@ -441,7 +424,7 @@ static void test_hostile_documents_and_failures(void **state)
     free(msg);
     assert_int_equal(access(out, F_OK), 0);
     /* and the page says so, once */
-    page = slurp(out, &n);
+    page = tt_test_slurp(out, &n);
     doc = parse(page, n);
     assert_non_null(doc);
     assert_int_equal(count_xpath(doc, "//h:h2[.='Problems met']"), 1);

@@ -89,22 +89,6 @@ static int hit_is(const tt_search_result *r, size_t h, const char *match)
            !memcmp(r->text.data + hit->text + hit->before_len, match, hit->match_len);
 }
 
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *b = malloc((size_t)n + 1);
-    assert_int_equal(fread(b, 1, (size_t)n, f), (size_t)n);
-    b[n] = '\0';
-    fclose(f);
-    if (len)
-        *len = (size_t)n;
-    return b;
-}
-
 /* Runs a shell command, returns its standard output and exit status. */
 static char *run(const char *cmd, int *status)
 {
@@ -508,7 +492,7 @@ static void test_html_offsets(void **state)
 {
     (void)state;
     size_t len;
-    char *file = slurp(FIX "phrases.htm", &len);
+    char *file = tt_test_read(FIX "phrases.htm", &len);
     tt_search_result r;
     tt_search_result_init(&r);
     tt_watchlist *wl = parse_ok("gc\tgoing\\s+concern\nrd\tR&D\nmw\tmaterial weakness\n"
@@ -703,7 +687,7 @@ static void test_crlf_lines(void **state)
 {
     (void)state;
     size_t len;
-    char *file = slurp(FIX "crlf.txt", &len);
+    char *file = tt_test_read(FIX "crlf.txt", &len);
     tt_search_result r;
     tt_search_result_init(&r);
     tt_watchlist *wl = parse_ok("gc\tgoing concern\n", NULL);
@@ -915,7 +899,7 @@ static void test_demo_corpus(void **state)
              "--manifest demo-corpus/manifest.tsv | grep -v '^#'",
              tt_test_bin());
     char *out = run(cmd, &st);
-    char *want = slurp(FIX "demo-counts.tsv", NULL);
+    char *want = tt_test_read(FIX "demo-counts.tsv", NULL);
     assert_string_equal(out, want);
     free(want);
     /* columns: document entity period going-concern doubt-near-concern

@@ -19,22 +19,6 @@
 
 #define FIXTURE "tests/fixtures/wrapper/harborline-q3.txt"
 
-static char *slurp(const char *path, size_t *len)
-{
-    FILE *f = fopen(path, "rb");
-    assert_non_null(f);
-    fseek(f, 0, SEEK_END);
-    long n = ftell(f);
-    fseek(f, 0, SEEK_SET);
-    char *p = malloc((size_t)n + 1);
-    assert_non_null(p);
-    assert_int_equal(fread(p, 1, (size_t)n, f), (size_t)n);
-    p[n] = '\0';
-    fclose(f);
-    *len = (size_t)n;
-    return p;
-}
-
 static char *to_crlf(const char *s, size_t n, size_t *out_len)
 {
     char *p = malloc(2 * n + 1);
@@ -187,7 +171,7 @@ static void test_fixture_lf(void **state)
 {
     (void)state;
     size_t len;
-    char *text = slurp(FIXTURE, &len);
+    char *text = tt_test_read(FIXTURE, &len);
     check_fixture_fields(text, len);
     check_against_python(FIXTURE, text, len);
     assert_int_equal(tt_detect_kind(text, len), TT_KIND_WRAPPER);
@@ -198,7 +182,7 @@ static void test_fixture_crlf(void **state)
 {
     (void)state;
     size_t len, clen;
-    char *text = slurp(FIXTURE, &len);
+    char *text = tt_test_read(FIXTURE, &len);
     char *crlf = to_crlf(text, len, &clen);
     char path[] = TT_TEST_TMP "tt_wrapper_crlfXXXXXX";
     int fd = mkstemp(path);
@@ -399,7 +383,7 @@ static void test_split_out_of_memory(void **state)
 {
     (void)state;
     size_t len;
-    char *text = slurp(FIXTURE, &len);
+    char *text = tt_test_read(FIXTURE, &len);
     tt_allocator a = { tt_test_failing_malloc, tt_test_failing_realloc, free };
     int ok = 0;
     for (int k = 0; k < 20 && !ok; k++) {

@@ -58,6 +58,43 @@ static inline char *tt_test_run(const char *args, int stderr_too, int *status)
     return out;
 }
 
+/* A whole file, NUL-terminated; the caller frees it. *len (when len is not
+ * NULL) gets its length. NULL when the file cannot be opened. */
+static inline char *tt_test_slurp(const char *path, size_t *len)
+{
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        if (len)
+            *len = 0;
+        return NULL;
+    }
+    size_t cap = 1 << 16, n = 0, k;
+    char *d = malloc(cap);
+    assert_non_null(d);
+    while ((k = fread(d + n, 1, cap - 1 - n, f)) > 0) {
+        n += k;
+        if (n + 1 == cap) {
+            char *grown = realloc(d, cap * 2);
+            assert_non_null(grown);
+            d = grown;
+            cap *= 2;
+        }
+    }
+    d[n] = '\0';
+    fclose(f);
+    if (len)
+        *len = n;
+    return d;
+}
+
+/* The same for a file the test needs: a missing one fails the test. */
+static inline char *tt_test_read(const char *path, size_t *len)
+{
+    char *d = tt_test_slurp(path, len);
+    assert_non_null(d);
+    return d;
+}
+
 /* A failing allocator for out-of-memory tests: with tt_test_fail_after = k
  * the (k+1)-th allocation from now fails, and every later one too; -1 never
  * fails. Install with tt_set_allocator(&(tt_allocator){ tt_test_failing_malloc,
