@@ -452,11 +452,7 @@ static char *browser(const char *page, const char *shot, const char *work)
              tt_test_python(), page, shot, work);
     FILE *p = popen(cmd, "r");
     assert_non_null(p);
-    size_t cap = 1 << 16, n = 0, k;
-    char *out = malloc(cap);
-    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0 && n + k + 1 < cap)
-        n += k;
-    out[n] = '\0';
+    char *out = tt_test_read_stream(p, NULL);
     pclose(p);
     return out;
 }

@@ -31,6 +31,8 @@ static inline const char *tt_test_python(void)
     return p ? p : "/usr/bin/python3";
 }
 
+static inline char *tt_test_read_stream(FILE *f, size_t *len);
+
 /* Runs the program with args (through the shell) and returns what it wrote
  * to stdout, with stderr too when stderr_too is set, NUL-terminated; the
  * caller frees it. *status gets the exit status, -1 when killed. */
@@ -40,34 +42,16 @@ static inline char *tt_test_run(const char *args, int stderr_too, int *status)
     snprintf(cmd, sizeof cmd, "%s %s %s", tt_test_bin(), args, stderr_too ? "2>&1" : "2>/dev/null");
     FILE *p = popen(cmd, "r");
     assert_non_null(p);
-    size_t cap = 1 << 16, n = 0, k;
-    char *out = malloc(cap);
-    assert_non_null(out);
-    while ((k = fread(out + n, 1, cap - 1 - n, p)) > 0) {
-        n += k;
-        if (n + 1 == cap) {
-            char *grown = realloc(out, cap * 2);
-            assert_non_null(grown);
-            out = grown;
-            cap *= 2;
-        }
-    }
-    out[n] = '\0';
+    char *out = tt_test_read_stream(p, NULL);
     int st = pclose(p);
     *status = st != -1 && WIFEXITED(st) ? WEXITSTATUS(st) : -1;
     return out;
 }
 
-/* A whole file, NUL-terminated; the caller frees it. *len (when len is not
- * NULL) gets its length. NULL when the file cannot be opened. */
-static inline char *tt_test_slurp(const char *path, size_t *len)
+/* Everything left to read from f, NUL-terminated (the caller frees it);
+ * *len (when len is not NULL) gets its length. */
+static inline char *tt_test_read_stream(FILE *f, size_t *len)
 {
-    FILE *f = fopen(path, "rb");
-    if (!f) {
-        if (len)
-            *len = 0;
-        return NULL;
-    }
     size_t cap = 1 << 16, n = 0, k;
     char *d = malloc(cap);
     assert_non_null(d);
@@ -81,9 +65,23 @@ static inline char *tt_test_slurp(const char *path, size_t *len)
         }
     }
     d[n] = '\0';
-    fclose(f);
     if (len)
         *len = n;
+    return d;
+}
+
+/* A whole file, NUL-terminated; the caller frees it. *len (when len is not
+ * NULL) gets its length. NULL when the file cannot be opened. */
+static inline char *tt_test_slurp(const char *path, size_t *len)
+{
+    FILE *f = fopen(path, "rb");
+    if (!f) {
+        if (len)
+            *len = 0;
+        return NULL;
+    }
+    char *d = tt_test_read_stream(f, len);
+    fclose(f);
     return d;
 }
 
