@@ -5,7 +5,8 @@
  * white space, LF, CR, or 0xC2 (the lead byte of U+00A0 NO-BREAK SPACE, which
  * counts as white space when followed by 0xA0). Runs of ordinary bytes, with
  * the single spaces between words, are copied in one memcpy (the ASCII fast
- * path); every other white-space run is collapsed while counting the line
+ * path; skip_ordinary() finds a run's end 16 bytes at a time with SSE2);
+ * every other white-space run is collapsed while counting the line
  * breaks in it:
  *   - two or more line breaks (a blank line, even one holding spaces or
  *     NBSP) end the paragraph;
@@ -22,6 +23,9 @@
  * the block list (one memcpy per paragraph), which keeps tt_blocks' layout
  * private to blocks.c. */
 #include <stdint.h>
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
 
 #include <utf8proc.h>
 
@@ -69,6 +73,44 @@ static int starts_with_letter(const unsigned char *s, size_t n)
     uint32_t cp;
     tti_utf8_decode(s, n, &cp);
     return is_letter(cp);
+}
+
+/* The first position at or after j where the run loop below must look at
+ * a byte itself: a byte that is not ordinary text (TAB, LF, VT, FF, CR, an
+ * NBSP), or a space whose next byte is not ordinary text (0xC2 counts as not
+ * ordinary here, even when it starts no NBSP: stopping early is safe, since
+ * the loop then decides byte by byte). Every byte before it would make the
+ * loop advance, one byte or a space-and-byte pair at a time, and a stop is
+ * never the second byte of such a pair, so the loop may resume there.
+ * SSE2 (the x86-64 baseline): 16 bytes per step, 1/16 of the table lookups
+ * of the loop; elsewhere it returns j and the loop does all the work. */
+static size_t skip_ordinary(const unsigned char *s, size_t len, size_t j)
+{
+#if defined(__SSE2__)
+    const __m128i lo = _mm_set1_epi8(8), hi = _mm_set1_epi8(14);
+    const __m128i sp = _mm_set1_epi8(' '), c2 = _mm_set1_epi8((char)0xC2);
+    const __m128i a0 = _mm_set1_epi8((char)0xA0);
+    while (j + 17 <= len) {
+        __m128i v = _mm_loadu_si128((const __m128i *)(s + j));
+        __m128i w = _mm_loadu_si128((const __m128i *)(s + j + 1));
+        /* TAB..CR are 9..13; bytes >= 0x80 are negative and fall outside */
+        __m128i ctl_v = _mm_and_si128(_mm_cmpgt_epi8(v, lo), _mm_cmplt_epi8(v, hi));
+        __m128i ctl_w = _mm_and_si128(_mm_cmpgt_epi8(w, lo), _mm_cmplt_epi8(w, hi));
+        __m128i odd_w = _mm_or_si128(ctl_w, _mm_or_si128(_mm_cmpeq_epi8(w, sp),
+                                                         _mm_cmpeq_epi8(w, c2)));
+        __m128i stop = _mm_or_si128(
+            ctl_v, _mm_or_si128(_mm_and_si128(_mm_cmpeq_epi8(v, c2), _mm_cmpeq_epi8(w, a0)),
+                                _mm_and_si128(_mm_cmpeq_epi8(v, sp), odd_w)));
+        unsigned m = (unsigned)_mm_movemask_epi8(stop);
+        if (m)
+            return j + (size_t)__builtin_ctz(m);
+        j += 16;
+    }
+#else
+    (void)s;
+    (void)len;
+#endif
+    return j;
 }
 
 tt_status tt_extract_text(const char *text, size_t len, long long src_base,
@@ -134,6 +176,9 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
          * are already normalized and so copied as they are. */
         size_t j = i + 1;
         while (j < len) {
+            j = skip_ordinary(s, len, j);
+            if (j >= len)
+                break;
             unsigned k = byte_class[s[j]];
             if (k == C_TEXT)
                 j++;

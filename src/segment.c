@@ -45,6 +45,10 @@
  * segment_end(). The tokenizer never allocates or copies, and never walks
  * back: an over-long token (a 50 MB run of letters, a base64 blob) is
  * walked once, counted, and dropped. */
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+
 #include "tt_internal.h"
 
 #include "termtide/segment.h"
@@ -259,6 +263,161 @@ size_t tt_wordbreak_next(const char *text, size_t len, size_t pos)
     return segment_end((const unsigned char *)text, len, pos, &seen);
 }
 
+/* ---- chunk masks ---------------------------------------------------------
+ *
+ * Between tokens and inside ASCII words the walk asks two questions: where
+ * does this run of [A-Za-z0-9_] end (and did it hold a letter, a digit), and
+ * where is the next byte that is not a plain ASCII separator. Both are
+ * answered with bit masks of a 64-byte chunk, made once per chunk (about one
+ * instruction per byte with SSE2), then a count of trailing zeros per
+ * question, instead of a table lookup per byte:
+ *   m_word   [A-Za-z0-9_] (tti_wb_ascii_run != 0)
+ *   m_letter [A-Za-z]     m_digit [0-9]
+ *   m_stop   m_word, bytes >= 0x80, CR, and the ASCII sentence terminals
+ *            . ! ? (tti_wb_stage2 & TTI_WB_TERMINAL)
+ * Positions at or past the end of the text are in m_stop and in no other
+ * mask, so both searches stop at the end. */
+#if defined(__SSE2__)
+static int use_simd = 1;
+#else
+static int use_simd = 0;
+#endif
+
+int tt_tokenizer_simd(int enable)
+{
+#if defined(__SSE2__)
+    use_simd = enable != 0;
+#else
+    (void)enable;
+#endif
+    return use_simd;
+}
+
+static void chunk_masks_portable(tt_tokenizer *t, const unsigned char *c, size_t n)
+{
+    uint64_t w = 0, l = 0, d = 0, st = 0;
+    for (size_t i = 0; i < n; i++) {
+        unsigned b = c[i], f = tti_wb_ascii_run[b];
+        uint64_t bit = (uint64_t)1 << i;
+        if (f) {
+            w |= bit;
+            if (f & TTI_WB_LETTER)
+                l |= bit;
+            if (f & TTI_WB_RUN_DIGIT)
+                d |= bit;
+        }
+        if (f || b >= 0x80 || b == '\r' || (tti_wb_stage2[b] & TTI_WB_TERMINAL))
+            st |= bit;
+    }
+    t->m_word = w;
+    t->m_letter = l;
+    t->m_digit = d;
+    t->m_stop = st;
+}
+
+#if defined(__SSE2__)
+/* Unsigned v - lo < span for each byte, as a 16-bit mask: the difference
+ * moved by 0x80 into signed order (SSE2 compares signed bytes only). */
+static inline unsigned in_range(__m128i v, int lo, int span)
+{
+    __m128i d = _mm_add_epi8(v, _mm_set1_epi8((char)(0x80 - lo)));
+    return (unsigned)_mm_movemask_epi8(_mm_cmplt_epi8(d, _mm_set1_epi8((char)(0x80 + span))));
+}
+
+static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
+{
+    uint64_t w = 0, l = 0, d = 0, st = 0;
+    for (int k = 0; k < 4; k++) {
+        __m128i v = _mm_loadu_si128((const __m128i *)(c + 16 * k));
+        uint64_t letter = in_range(_mm_or_si128(v, _mm_set1_epi8(0x20)), 'a', 26);
+        uint64_t digit = in_range(v, '0', 10);
+        uint64_t under = (unsigned)_mm_movemask_epi8(_mm_cmpeq_epi8(v, _mm_set1_epi8('_')));
+        __m128i other = _mm_or_si128(
+            _mm_or_si128(_mm_cmpeq_epi8(v, _mm_set1_epi8('.')), _mm_cmpeq_epi8(v, _mm_set1_epi8('!'))),
+            _mm_or_si128(_mm_cmpeq_epi8(v, _mm_set1_epi8('?')), _mm_cmpeq_epi8(v, _mm_set1_epi8('\r'))));
+        uint64_t high = (unsigned)_mm_movemask_epi8(v);
+        uint64_t word = letter | digit | under;
+        w |= word << (16 * k);
+        l |= letter << (16 * k);
+        d |= digit << (16 * k);
+        st |= (word | high | (unsigned)_mm_movemask_epi8(other)) << (16 * k);
+    }
+    t->m_word = w;
+    t->m_letter = l;
+    t->m_digit = d;
+    t->m_stop = st;
+}
+#endif
+
+/* Makes the masks of the chunk holding position p current; returns p's bit
+ * index in them. */
+static inline unsigned chunk_at(tt_tokenizer *t, size_t p)
+{
+    size_t base = p & ~(size_t)63;
+    if (t->chunk != base) {
+        const unsigned char *c = (const unsigned char *)t->text + base;
+        size_t n = t->len - base;
+        t->chunk = base;
+#if defined(__SSE2__)
+        if (use_simd) {
+            if (n >= 64) {
+                chunk_masks_sse2(t, c);
+                return (unsigned)(p - base);
+            }
+            /* the text's last chunk, padded with NUL, a byte of no mask */
+            unsigned char pad[64] = { 0 };
+            memcpy(pad, c, n);
+            chunk_masks_sse2(t, pad);
+            t->m_stop |= ~(uint64_t)0 << n;
+            return (unsigned)(p - base);
+        }
+#endif
+        chunk_masks_portable(t, c, n < 64 ? n : 64);
+        if (n < 64)
+            t->m_stop |= ~(uint64_t)0 << n;
+    }
+    return (unsigned)(p - base);
+}
+
+/* The end of the run of [A-Za-z0-9_] starting at p; *seen gets SEEN_LETTER
+ * and SEEN_DIGIT for what the run holds. */
+static inline size_t word_run_end(tt_tokenizer *t, size_t p, unsigned *seen)
+{
+    uint64_t letter = 0, digit = 0;
+    for (;;) {
+        unsigned i = chunk_at(t, p);
+        uint64_t past = ~t->m_word >> i; /* bits i.. of the chunk: not in the run */
+        uint64_t span;
+        size_t n;
+        if (past) {
+            n = (size_t)__builtin_ctzll(past);
+            span = (((uint64_t)1 << n) - 1) << i;
+        } else {
+            n = 64 - i;
+            span = ~(uint64_t)0 << i;
+        }
+        letter |= t->m_letter & span;
+        digit |= t->m_digit & span;
+        p += n;
+        if (past)
+            break;
+    }
+    *seen = (letter ? SEEN_LETTER : 0) | (digit ? SEEN_DIGIT : 0);
+    return p;
+}
+
+/* The first position at or after p whose byte is in m_stop (or the end). */
+static inline size_t next_stop(tt_tokenizer *t, size_t p)
+{
+    for (;;) {
+        unsigned i = chunk_at(t, p);
+        uint64_t ahead = t->m_stop >> i;
+        if (ahead)
+            return p + (size_t)__builtin_ctzll(ahead);
+        p += 64 - i;
+    }
+}
+
 void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
 {
     t->text = text;
@@ -268,6 +427,8 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
     t->overlong = 0;
     t->prev_off = t->prev_end = (size_t)-1;
     t->pending_suffix = 0;
+    t->chunk = (size_t)-1;
+    t->m_word = t->m_letter = t->m_digit = t->m_stop = 0;
 }
 
 /* Abbreviations whose period never ends a sentence: titles, "No.", "U.S.",
@@ -354,16 +515,13 @@ static size_t hyphen_len(const unsigned char *s, size_t n)
  * ends unless the next byte is non-ASCII or a letter, digit or '_' (the only
  * cases in which WB6/WB7, WB11/WB12 can join across it). Returns the end,
  * or 0 to leave the decision to segment_end(). */
-static size_t ascii_word_end(const unsigned char *s, size_t len, size_t p, unsigned *seen)
+static size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, size_t len, size_t p,
+                             unsigned *seen)
 {
-    size_t q = p;
-    unsigned run = 0, f;
-    while (q < len && (f = tti_wb_ascii_run[s[q]]) != 0) {
-        run |= f;
-        q++;
-    }
-    if (q == p)
+    if (!tti_wb_ascii_run[s[p]])
         return 0;
+    unsigned run;
+    size_t q = word_run_end(t, p, &run);
     if (q < len) {
         unsigned c = s[q];
         if (c >= 0x80)
@@ -373,7 +531,7 @@ static size_t ascii_word_end(const unsigned char *s, size_t len, size_t p, unsig
                 return 0;
         }
     }
-    *seen = ((run & TTI_WB_LETTER) ? SEEN_LETTER : 0) | ((run & TTI_WB_RUN_DIGIT) ? SEEN_DIGIT : 0);
+    *seen = run;
     return q;
 }
 
@@ -389,7 +547,24 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
              * that is not a letter, digit, '_' or CR starts no rule that
              * joins it to the next character, except WB3d (a space run) and
              * WB4 (Extend/Format/ZWJ, never ASCII); so, before an ASCII
-             * byte or the end, it is a segment alone. */
+             * byte or the end, it is a segment alone. A run of such
+             * characters that are not terminals either is stepped over with
+             * the chunk masks, up to the next byte that matters; if that
+             * byte is not ASCII, the run's last segment (a space run or one
+             * character) is left to the walk below, which then meets it. */
+            if (!(tti_wb_stage2[b] & TTI_WB_TERMINAL)) {
+                size_t r = next_stop(t, p + 1);
+                if (r >= len || s[r] < 0x80) {
+                    p = r;
+                    continue;
+                }
+                size_t q = r - 1;
+                if (s[q] == ' ')
+                    while (q > p && s[q - 1] == ' ')
+                        q--;
+                p = q;
+                b = s[p];
+            }
             size_t q = p + 1;
             if (b == ' ')
                 while (q < len && s[q] == ' ')
@@ -402,7 +577,7 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
             }
         }
         unsigned seen;
-        size_t end = b < 0x80 ? ascii_word_end(s, len, p, &seen) : 0;
+        size_t end = b < 0x80 ? ascii_word_end(t, s, len, p, &seen) : 0;
         if (!end)
             end = segment_end(s, len, p, &seen);
         if (!(seen & SEEN_TOKEN)) {

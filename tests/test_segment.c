@@ -322,6 +322,8 @@ typedef struct rnd_char {
 
 static const rnd_char rnd_alphabet[] = {
     { "a", 1, 0 }, { "Z", 1, 0 }, { "q", 1, 0 },
+    { "Operating_income2025Segments", 1, 0 }, /* a long ASCII run */
+    { "   ", 0, 0 },
     { "\xC3\xA9", 1, 0 },          /* U+00E9 e acute, Ll */
     { "\xCF\x89", 1, 0 },          /* U+03C9 omega, Ll */
     { "\xD7\x90", 1, 0 },          /* U+05D0 alef, Hebrew_Letter */
@@ -415,20 +417,20 @@ static void test_abbreviations(void **state)
     }
 }
 
-static void test_random_against_reference(void **state)
+/* cases random texts of up to maxch characters from the alphabet. */
+static void random_against_reference(int cases, size_t maxch, uint32_t x)
 {
-    (void)state;
-    enum { CASES = 20000, MAXCH = 40 };
+    enum { MAXCH = 400 };
     const size_t nalpha = sizeof rnd_alphabet / sizeof rnd_alphabet[0];
     char text[MAXCH * 4 + 1];
     unsigned char word_at[MAXCH * 4], term_at[MAXCH * 4];
     size_t seg_a[MAXCH * 4], seg_b[MAXCH * 4];
-    uint32_t x = 2025u;
+    assert_true(maxch <= MAXCH);
 
-    for (int k = 0; k < CASES; k++) {
+    for (int k = 0; k < cases; k++) {
         size_t len = 0;
         x = x * 1664525u + 1013904223u;
-        size_t nch = 1 + (x >> 16) % MAXCH;
+        size_t nch = 1 + (x >> 16) % maxch;
         for (size_t i = 0; i < nch; i++) {
             x = x * 1664525u + 1013904223u;
             const rnd_char *c = &rnd_alphabet[(x >> 12) % nalpha];
@@ -451,7 +453,7 @@ static void test_random_against_reference(void **state)
             seg_b[nseg++] = e;
             p = e;
         }
-        char want[2048], got[2048];
+        char want[MAXCH * 8 + 1], got[MAXCH * 8 + 1];
         size_t o = 0;
         int at_start = 1, suffix = 0;
         size_t prev_a = (size_t)-1, prev_b = (size_t)-1;
@@ -517,6 +519,21 @@ static void test_random_against_reference(void **state)
             fail();
         }
     }
+}
+
+/* Short texts, and texts long enough to cross the tokenizer's 64-byte chunks
+ * (with words and separator runs across their edges), with the chunk masks
+ * made by SSE2 and by the portable code. */
+static void test_random_against_reference(void **state)
+{
+    (void)state;
+    int simd = tt_tokenizer_simd(1);
+    for (int mode = 0; mode < 2; mode++) {
+        tt_tokenizer_simd(mode == 0);
+        random_against_reference(20000, 40, 2025u);
+        random_against_reference(3000, 400, 77u);
+    }
+    tt_tokenizer_simd(simd);
 }
 
 /* English-like text: invented vocabulary, numbers, punctuation, sentences,

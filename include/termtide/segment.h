@@ -60,11 +60,22 @@ typedef struct tt_tokenizer {
     size_t overlong;
     size_t prev_off, prev_end; /* the last token returned, (size_t)-1 none */
     int pending_suffix;        /* the last terminal followed "Inc." and the like */
+    /* Byte classes of one 64-byte chunk of the text (segment.c), bit i for
+     * text[chunk + i]: filled on demand, as the walk reaches a chunk. */
+    size_t chunk;              /* offset of the chunk, (size_t)-1 none yet */
+    unsigned long long m_word, m_letter, m_digit, m_stop;
 } tt_tokenizer;
 
 void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
 
 /* Returns 1 and fills tok, or 0 at the end. */
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok);
+
+/* Whether tokenizers classify the bytes of a 64-byte chunk with SSE2 (the
+ * default where the compiler targets it, as on x86-64). enable = 0 forces
+ * the portable code, which gives the same tokens (for tests and
+ * measurements). Returns 1 when SSE2 is in use. Call before starting
+ * threads. */
+int tt_tokenizer_simd(int enable);
 
 #endif
