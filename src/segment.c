@@ -131,6 +131,18 @@ static unsigned next_visible(const unsigned char *s, size_t len, size_t q)
     return TTI_WB_OTHER;
 }
 
+/* Whether the character at s[q..] (q < len) is a segment alone whatever
+ * precedes it, and no token: Word_Break Other with no letter, terminal or
+ * Extended_Pictographic bit (dashes, most quotation marks, symbols),
+ * followed by an ASCII byte or the end. No rule joins anything to Other
+ * (WB4 and WB3d need Extend/Format/ZWJ or WSegSpace; WB3c needs ZWJ before
+ * an Extended_Pictographic), and after it only a non-ASCII character could
+ * be joined (WB4). *n gets its length. */
+static inline int lone_other(const unsigned char *s, size_t len, size_t q, size_t *n)
+{
+    return class_at(s + q, len - q, n) == TTI_WB_OTHER && (q + *n >= len || s[q + *n] < 0x80);
+}
+
 /* Rules WB5–WB16 at the position before cur (at s[q..], the character
  * after it at s[after..]). Returns 1 for "no break". WB999 is the fallback:
  * break. */
@@ -505,31 +517,62 @@ static size_t hyphen_len(const unsigned char *s, size_t n)
 
 #define SEEN_TOKEN (SEEN_LETTER | SEEN_DIGIT)
 
-/* Fast path for the commonest token: a run of ASCII letters, digits and
- * '_' starting at a boundary. Such a run never breaks inside (WB5, WB8–WB10,
- * WB13a, WB13b). It ends the segment when the byte after it is ASCII and is
- * neither a letter, digit or '_' nor one of the Mid* and quote characters
- * . : ' , ; — every other ASCII character is Other, CR, LF, WSegSpace or
- * Double_Quote, which no rule joins to a letter or digit (WB999), and no
- * Extend/Format/ZWJ is ASCII (WB4). After one of . : ' , ; the segment also
- * ends unless the next byte is non-ASCII or a letter, digit or '_' (the only
- * cases in which WB6/WB7, WB11/WB12 can join across it). Returns the end,
- * or 0 to leave the decision to segment_end(). */
+/* Fast path for the commonest token: runs of ASCII letters, digits and '_'
+ * starting at a boundary. Such a run never breaks inside (WB5, WB8–WB10,
+ * WB13a, WB13b). At its end, by the character c after it:
+ *   - c ASCII: no ASCII character is Extend/Format/ZWJ (WB4), and only the
+ *     Mid* and quote characters . : ' , ; can join a letter or digit to what
+ *     follows (WB6/WB7: letter, MidLetter or MidNumLetQ, letter; WB11/WB12:
+ *     digit, MidNum or MidNumLetQ, digit); every other one breaks (WB999);
+ *   - c non-ASCII of Word_Break Other (dashes, most quotation marks):
+ *     nothing joins to it, so the segment ends;
+ *   - c non-ASCII MidLetter/MidNum/MidNumLet (U+2019 in "company’s"):
+ *     as for . : ' , ; when the byte after it is ASCII;
+ *   - anything else (a non-ASCII letter, a mark): segment_end() decides.
+ * A join is taken when the run's last byte and the byte after c are both
+ * ASCII letters (and c is no MidNum) or both digits (and c is no
+ * MidLetter); the run then goes on after c. Returns the end, or 0 to leave
+ * the decision to segment_end(). */
 static size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, size_t len, size_t p,
                              unsigned *seen)
 {
     if (!tti_wb_ascii_run[s[p]])
         return 0;
-    unsigned run;
-    size_t q = word_run_end(t, p, &run);
-    if (q < len) {
-        unsigned c = s[q];
-        if (c >= 0x80)
-            return 0;
-        if (c == '.' || c == ':' || c == '\'' || c == ',' || c == ';') {
-            if (q + 1 < len && (s[q + 1] >= 0x80 || tti_wb_ascii_run[s[q + 1]]))
+    unsigned run = 0, part;
+    size_t q = p;
+    for (;;) {
+        q = word_run_end(t, q, &part);
+        run |= part;
+        if (q >= len)
+            break;
+        unsigned c = s[q], prop;
+        size_t n = 1;
+        if (c < 0x80) {
+            prop = tti_wb_stage2[c] & TTI_WB_PROP_MASK;
+        } else {
+            unsigned cls = class_at(s + q, len - q, &n);
+            if (cls == TTI_WB_OTHER)
+                break;
+            prop = cls & TTI_WB_PROP_MASK;
+            if (prop != TTI_WB_MIDLETTER && prop != TTI_WB_MIDNUM && prop != TTI_WB_MIDNUMLET &&
+                prop != TTI_WB_SINGLE_QUOTE)
                 return 0;
         }
+        if (prop != TTI_WB_MIDLETTER && prop != TTI_WB_MIDNUM && prop != TTI_WB_MIDNUMLET &&
+            prop != TTI_WB_SINGLE_QUOTE)
+            break;
+        if (q + n >= len)
+            break;
+        unsigned next = s[q + n], last = s[q - 1];
+        if (next >= 0x80)
+            return 0;
+        int letters = tti_is_ascii_alpha((int)last) && tti_is_ascii_alpha((int)next) &&
+                      prop != TTI_WB_MIDNUM;
+        int digits = last >= '0' && last <= '9' && next >= '0' && next <= '9' &&
+                     prop != TTI_WB_MIDLETTER;
+        if (!letters && !digits)
+            break;
+        q += n;
     }
     *seen = run;
     return q;
@@ -553,7 +596,9 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
              * byte is not ASCII, the run's last segment (a space run or one
              * character) is left to the walk below, which then meets it. */
             if (!(tti_wb_stage2[b] & TTI_WB_TERMINAL)) {
-                size_t r = next_stop(t, p + 1);
+                size_t r = next_stop(t, p + 1), n;
+                while (r < len && s[r] >= 0x80 && lone_other(s, len, r, &n))
+                    r = next_stop(t, r + n);
                 if (r >= len || s[r] < 0x80) {
                     p = r;
                     continue;
@@ -577,6 +622,11 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
             }
         }
         unsigned seen;
+        size_t n;
+        if (b >= 0x80 && lone_other(s, len, p, &n)) {
+            p += n;
+            continue;
+        }
         size_t end = b < 0x80 ? ascii_word_end(t, s, len, p, &seen) : 0;
         if (!end)
             end = segment_end(s, len, p, &seen);
