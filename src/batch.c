@@ -7,6 +7,11 @@
  * memory is bounded by window × (one input's tables) whatever the batch
  * size, and output is identical whatever the thread count.
  *
+ * When only the total is wanted, each worker counts straight into its own
+ * partial table, and the partials are merged at the end; otherwise each
+ * document gets its own table, delivered with its result (and merged into
+ * the worker's partial when a total is wanted too).
+ *
  * Failures are per input: a file that cannot be read, decoded or parsed is
  * recorded as a problem in its slot and delivered in order like a result;
  * the batch goes on. */
@@ -233,6 +238,15 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     int analysing = only_analyse(opt);
     if (analysing) {
         st = opt->analyse(opt->ctx, w->astate, doc, &out, &stats);
+    } else if (w->partial && !opt->analyse) {
+        /* Only the total is wanted: count straight into the worker's
+         * partial table, with no table per document to fill and merge. A
+         * failure here (out of memory, too many distinct terms) may leave
+         * part of the document in the partial, so it fails the total, as a
+         * failed merge would. */
+        st = tt_counter_count(w->counter, doc->blocks, w->partial, &stats);
+        if (st && *w->partial_status == TT_OK)
+            *w->partial_status = st;
     } else {
         table = tt_termtable_new();
         st = table ? tt_counter_count(w->counter, doc->blocks, table, &stats) : TT_ENOMEM;
