@@ -162,7 +162,13 @@ static tt_status part_notes(tt_buf *notes, const tt_buf *base, const char *raw, 
 struct tt_reader {
     tt_buf raw, text, base_notes, notes, name;
     tt_blocks blocks;
+    char sha256[65]; /* of the last file read, "" when not asked */
 };
+
+const char *tt_reader_sha256(const tt_reader *r)
+{
+    return r->sha256;
+}
 
 tt_reader *tt_reader_new(void)
 {
@@ -240,8 +246,16 @@ tt_status tt_reader_read(tt_reader *r, const char *path, const tt_read_options *
     tt_wrapper_init(&wrapper);
     tt_error_init(&part_err);
 
-    if ((st = tt_source_read(path, &r->raw, &was_gzip, err)) != TT_OK)
+    r->sha256[0] = '\0';
+    if (opt && opt->sha256) {
+        tt_sha256 h;
+        tt_sha256_init(&h);
+        if ((st = tt_source_read_hashed(path, &r->raw, &was_gzip, &h, err)) != TT_OK)
+            goto done;
+        tt_sha256_final_hex(&h, r->sha256);
+    } else if ((st = tt_source_read(path, &r->raw, &was_gzip, err)) != TT_OK) {
         goto done;
+    }
     empty_file = r->raw.len == 0;
     /* Valid UTF-8 is decoded where it lies; otherwise the decoded copy is
      * swapped in. Either way the decoded text ends in r->text and the other
@@ -262,6 +276,7 @@ tt_status tt_reader_read(tt_reader *r, const char *path, const tt_read_options *
     doc.decode = info;
     doc.was_gzip = was_gzip;
     doc.type = doc.entity = doc.period = doc.form = "";
+    doc.sha256 = r->sha256;
 
     kind = tt_detect_kind(r->text.data, r->text.len);
     if (kind != TT_KIND_WRAPPER) {

@@ -1169,14 +1169,15 @@ static void process_input(runner *r, worker *w, size_t i, slot *s)
         add_problem(s, &err, 1);
         return;
     }
-    if (r->opt->hash_files && strcmp(in->path, "-") != 0 &&
-        tt_sha256_file(in->path, e->sha256, &err) != TT_OK) {
-        add_problem(s, &err, 1);
-        return;
-    }
+    /* The hash comes from the reader, over the very bytes it read; the
+     * input's event may move as the documents' events are pushed. */
+    size_t input_event = s->n - 1;
+    tt_read_options ro = r->opt->read;
+    ro.sha256 = r->opt->hash_files;
     w->s = s;
     w->input = i;
-    tt_status st = tt_reader_read(w->reader, in->path, &r->opt->read, on_doc, w, NULL, &err);
+    tt_status st = tt_reader_read(w->reader, in->path, &ro, on_doc, w, NULL, &err);
+    memcpy(s->events[input_event].sha256, tt_reader_sha256(w->reader), 65);
     if (st) {
         if (!err.file[0])
             tti_strlcpy(err.file, in->path, sizeof err.file);

@@ -225,6 +225,13 @@ static void to_hex(const unsigned char d[32], char out[65])
     out[64] = '\0';
 }
 
+void tt_sha256_final_hex(tt_sha256 *h, char out[65])
+{
+    unsigned char d[32];
+    tt_sha256_final(h, d);
+    to_hex(d, out);
+}
+
 void tt_sha256_hex(const void *data, size_t len, char out[65])
 {
     tt_sha256 h;

@@ -401,7 +401,8 @@ static int all_zero(const unsigned char *p, size_t n)
 /* Inflates gzip from fd into out; head holds the first nhead bytes already
  * read. */
 static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size_t hint,
-                           size_t limit, tt_buf *out, const char *name, tt_error *err)
+                           size_t limit, tt_buf *out, tt_sha256 *hash, const char *name,
+                           tt_error *err)
 {
     z_stream zs;
     unsigned char *in = tt_malloc(GZ_IN_CHUNK);
@@ -444,6 +445,8 @@ static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size
                 rc = read_error(err, name, errno);
                 goto done;
             }
+            if (hash)
+                tt_sha256_update(hash, in + keep, (size_t)r);
             if (r == 0)
                 eof = 1;
             zs.next_in = in;
@@ -580,6 +583,12 @@ fail:
 
 tt_status tt_source_read(const char *path, tt_buf *out, int *was_gzip, tt_error *err)
 {
+    return tt_source_read_hashed(path, out, was_gzip, NULL, err);
+}
+
+tt_status tt_source_read_hashed(const char *path, tt_buf *out, int *was_gzip, tt_sha256 *hash,
+                                tt_error *err)
+{
     const int is_stdin = strcmp(path, "-") == 0;
     const char *name = is_stdin ? "<stdin>" : path;
     char msg[256];
@@ -633,11 +642,15 @@ tt_status tt_source_read(const char *path, tt_buf *out, int *was_gzip, tt_error 
     if (nhead == 2 && head[0] == 0x1f && head[1] == 0x8b) {
         if (was_gzip)
             *was_gzip = 1;
-        rc = read_gzip(fd, head, nhead, hint, limit, out, name, err);
+        if (hash)
+            tt_sha256_update(hash, head, nhead);
+        rc = read_gzip(fd, head, nhead, hint, limit, out, hash, name, err);
     } else if (hint > limit) {
         rc = limit_error(err, name, limit, 0);
     } else {
         rc = read_plain(fd, head, nhead, hint, limit, out, name, err);
+        if (rc == TT_OK && hash)
+            tt_sha256_update(hash, out->data, out->len);
     }
     if (rc != TT_OK)
         tt_buf_reset(out);

@@ -185,6 +185,59 @@ static void test_sha256_against_hashlib(void **state)
     assert_string_equal(err.file, FIX "no-such-file");
 }
 
+/* The reader hashes the bytes as it reads them (tt_read_options.sha256):
+ * a plain file and a gzip file of two members (hashed compressed, as stored)
+ * against Python's hashlib over the same files; a file that cannot be read
+ * has no hash. */
+static tt_status count_docs(void *ctx, const tt_document *doc)
+{
+    (void)doc;
+    ++*(int *)ctx;
+    return TT_OK;
+}
+
+static void test_sha256_while_reading(void **state)
+{
+    (void)state;
+    char gz[] = TT_TEST_TMP "tt-search-hash-XXXXXX";
+    int fd = mkstemp(gz);
+    assert_true(fd >= 0);
+    close(fd);
+    char cmd[1024];
+    snprintf(cmd, sizeof cmd,
+             "%s -c \"import gzip,hashlib;d=open('%sphrases.htm','rb').read();"
+             "b=gzip.compress(d[:300])+gzip.compress(d[300:]);open('%s','wb').write(b);"
+             "print(hashlib.sha256(d).hexdigest());print(hashlib.sha256(b).hexdigest())\"",
+             tt_test_python(), FIX, gz);
+    char *want = run(cmd, NULL);
+    assert_true(strlen(want) >= 130);
+    tt_reader *r = tt_reader_new();
+    assert_non_null(r);
+    tt_read_options ro;
+    memset(&ro, 0, sizeof ro);
+    ro.sha256 = 1;
+    tt_error err;
+    tt_error_init(&err);
+    const char *paths[2] = { FIX "phrases.htm", gz };
+    for (int k = 0; k < 2; k++) {
+        int docs = 0;
+        assert_int_equal(tt_reader_read(r, paths[k], &ro, count_docs, &docs, NULL, &err), TT_OK);
+        assert_int_equal(docs, 1);
+        assert_memory_equal(tt_reader_sha256(r), want + 65 * k, 64);
+        assert_int_equal(strlen(tt_reader_sha256(r)), 64);
+    }
+    assert_int_equal(tt_reader_read(r, FIX "no-such-file", &ro, count_docs, NULL, NULL, &err),
+                     TT_ENOENT);
+    assert_string_equal(tt_reader_sha256(r), "");
+    ro.sha256 = 0; /* not asked: no hash */
+    int docs = 0;
+    assert_int_equal(tt_reader_read(r, paths[0], &ro, count_docs, &docs, NULL, &err), TT_OK);
+    assert_string_equal(tt_reader_sha256(r), "");
+    tt_reader_free(r);
+    free(want);
+    unlink(gz);
+}
+
 /* ---- watch-list parsing ------------------------------------------------------- */
 
 static void test_watchlist_parse(void **state)
@@ -949,6 +1002,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_sha256_fips_examples),
         cmocka_unit_test(test_sha256_against_hashlib),
+        cmocka_unit_test(test_sha256_while_reading),
         cmocka_unit_test(test_watchlist_parse),
         cmocka_unit_test(test_watchlist_problems),
         cmocka_unit_test(test_words_and_case),

@@ -91,6 +91,10 @@ typedef struct tt_read_options {
     const char *const *sections;
     size_t n_sections;
     const struct tt_section_rules *section_rules; /* NULL: built-in structure */
+    /* 1: each file's SHA-256 is computed from the bytes as they are read
+     * (tt_source_read_hashed), in tt_document.sha256 and
+     * tt_reader_sha256(). */
+    int sha256;
 } tt_read_options;
 
 /* One document handed to the callback. Everything in it is owned by the
@@ -126,6 +130,9 @@ typedef struct tt_document {
                               document" (a part or file of white space
                               only); "HTML repaired: 2 problems". "" when
                               none. */
+    const char *sha256;    /* the outer file's SHA-256 as 64 lower-case hex
+                              digits when tt_read_options.sha256 asked for
+                              it, else "" */
 } tt_document;
 
 /* Return non-OK from the callback to stop reading this file; that status is
@@ -156,5 +163,11 @@ tt_reader *tt_reader_new(void);
 void tt_reader_free(tt_reader *r);
 tt_status tt_reader_read(tt_reader *r, const char *path, const tt_read_options *opt,
                          tt_document_fn fn, void *ctx, size_t *skipped_parts, tt_error *err);
+
+/* The SHA-256 (64 lower-case hex digits) of the file the last
+ * tt_reader_read() read, when its options asked for it and the file was
+ * read whole (even if a part then failed to extract, or no part was kept);
+ * "" otherwise. Owned by the reader, valid until its next read. */
+const char *tt_reader_sha256(const tt_reader *r);
 
 #endif

@@ -188,8 +188,11 @@ typedef struct tt_search_batch_options {
     tt_read_options read;
     int threads;            /* 1: in the calling thread */
     int counts_only;
-    int hash_files;         /* compute each input file's SHA-256 */
-    /* In input order, in the calling thread. Non-OK stops the batch. */
+    int hash_files;         /* compute each input file's SHA-256, from the
+                               bytes as they are read (standard input
+                               too) */
+    /* In input order, in the calling thread. Non-OK stops the batch.
+     * sha256 is "" when not asked for or when the file could not be read. */
     tt_status (*on_input)(void *ctx, size_t input, const char *path, const char *sha256);
     tt_status (*on_document)(void *ctx, const tt_search_doc *d);
     /* skipped = 1: the input or document was not searched. */

@@ -25,6 +25,10 @@ void tt_sha256_final(tt_sha256 *h, unsigned char digest[32]);
  * before starting threads. */
 int tt_sha256_accelerated(int enable);
 
+/* As tt_sha256_final, the digest written as 64 lower-case hex digits and a
+ * NUL. */
+void tt_sha256_final_hex(tt_sha256 *h, char out[65]);
+
 /* The digest of data[0..len) as 64 lower-case hex digits and a NUL. */
 void tt_sha256_hex(const void *data, size_t len, char out[65]);
 

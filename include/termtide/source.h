@@ -5,6 +5,7 @@
 
 #include <stddef.h>
 #include "termtide/buf.h"
+#include "termtide/sha256.h"
 #include "termtide/status.h"
 
 /* One input after expansion. A path that could not be expanded (does not
@@ -54,5 +55,14 @@ tt_status tt_source_list_add(tt_source_list *list, const char *path);
  * "-") and the cause, and out is left empty. *was_gzip (may be NULL) is set
  * to 1 when the input was gzip. */
 tt_status tt_source_read(const char *path, tt_buf *out, int *was_gzip, tt_error *err);
+
+/* As tt_source_read, and when hash is not NULL it is fed every byte of the
+ * file as stored (a gzip file compressed, as `sha256sum` would hash it), in
+ * the same pass that fills out: the digest names exactly the bytes the text
+ * came from, standard input included. The caller initialises hash before
+ * and finalises it after (tt_sha256_init, tt_sha256_final); after an error
+ * its state is undefined. */
+tt_status tt_source_read_hashed(const char *path, tt_buf *out, int *was_gzip, tt_sha256 *hash,
+                                tt_error *err);
 
 #endif

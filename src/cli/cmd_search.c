@@ -166,13 +166,13 @@ static tt_status on_input(void *vctx, size_t input, const char *path, const char
         st = tt_table_begin(&w, TT_FORMAT_JSONL, &c->buf, cols, 3, 0);
         if (!st) st = tt_table_cstr(&w, "input");
         if (!st) st = tt_table_cstr(&w, path);
-        if (!st) st = tt_table_cstr(&w, sha256[0] ? sha256 : "n/a (standard input)");
+        if (!st) st = tt_table_cstr(&w, sha256[0] ? sha256 : "n/a (not read)");
         if (!st) st = tt_table_end_row(&w);
     } else {
         st = tt_buf_puts(&c->buf, "# input ");
         if (!st) st = put_clean(&c->buf, path);
         if (!st) st = tt_buf_printf(&c->buf, " sha256 %s\n",
-                                    sha256[0] ? sha256 : "n/a (standard input)");
+                                    sha256[0] ? sha256 : "n/a (not read)");
     }
     return st ? st : flush(c, 0);
 }
