@@ -2,6 +2,9 @@
  * subcommand, from the table below, which also drives --help. */
 #include <stdlib.h>
 #include <string.h>
+#if defined(__GLIBC__)
+#include <malloc.h>
+#endif
 #include <time.h>
 #include <unistd.h>
 
@@ -81,8 +84,25 @@ static void seed_hash(void)
     tt_termtable_set_seed(k[0], k[1]);
 }
 
+/* A batch allocates and frees the same sizes for every document: a term
+ * table per document (a megabyte of slots for a long one), the file's
+ * buffers. glibc serves blocks past its mmap threshold from fresh mappings
+ * and gives freed heap tops back to the system, so each document would fault
+ * its pages in again (a third of the time of a table per document on the
+ * benchmark corpus went to the kernel). Blocks up to 16 MiB come from the
+ * heap, and up to 32 MiB of free heap top is kept for the next document;
+ * peak memory is unchanged, it is only not returned between documents. */
+static void keep_memory_between_documents(void)
+{
+#if defined(__GLIBC__)
+    mallopt(M_MMAP_THRESHOLD, 16 << 20);
+    mallopt(M_TRIM_THRESHOLD, 32 << 20);
+#endif
+}
+
 int main(int argc, char **argv)
 {
+    keep_memory_between_documents();
     if (argc < 2) {
         usage(stderr);
         return TT_EXIT_TROUBLE;
