@@ -87,6 +87,8 @@ static int starts_with_letter(const unsigned char *s, size_t n)
 static size_t skip_ordinary(const unsigned char *s, size_t len, size_t j)
 {
 #if defined(__SSE2__)
+    if (!tti_use_simd)
+        return j;
     const __m128i lo = _mm_set1_epi8(8), hi = _mm_set1_epi8(14);
     const __m128i sp = _mm_set1_epi8(' '), c2 = _mm_set1_epi8((char)0xC2);
     const __m128i a0 = _mm_set1_epi8((char)0xA0);

@@ -289,22 +289,6 @@ size_t tt_wordbreak_next(const char *text, size_t len, size_t pos)
  *            . ! ? (tti_wb_stage2 & TTI_WB_TERMINAL)
  * Positions at or past the end of the text are in m_stop and in no other
  * mask, so both searches stop at the end. */
-#if defined(__SSE2__)
-static int use_simd = 1;
-#else
-static int use_simd = 0;
-#endif
-
-int tt_tokenizer_simd(int enable)
-{
-#if defined(__SSE2__)
-    use_simd = enable != 0;
-#else
-    (void)enable;
-#endif
-    return use_simd;
-}
-
 static void chunk_masks_portable(tt_tokenizer *t, const unsigned char *c, size_t n)
 {
     uint64_t w = 0, l = 0, d = 0, st = 0;
@@ -371,7 +355,7 @@ static inline unsigned chunk_at(tt_tokenizer *t, size_t p)
         size_t n = t->len - base;
         t->chunk = base;
 #if defined(__SSE2__)
-        if (use_simd) {
+        if (tti_use_simd) {
             if (n >= 64) {
                 chunk_masks_sse2(t, c);
                 return (unsigned)(p - base);

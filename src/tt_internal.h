@@ -70,6 +70,9 @@ static inline size_t tti_token_slot(const uint64_t key[3], size_t len, unsigned 
     return (size_t)((mix ^ (mix >> 29)) >> (64 - bits));
 }
 
+/* Whether the SSE2 paths are used (src/simd.c, tt_simd()). */
+extern int tti_use_simd;
+
 /* A text compiled into the library by tools/embed.c (stop-word lists,
  * lexicons); each generated table ends with a { NULL, NULL } entry. */
 struct tti_embedded {

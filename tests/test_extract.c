@@ -26,6 +26,7 @@
 #include <unistd.h>
 
 #include "termtide/alloc.h"
+#include "termtide/simd.h"
 #include "termtide/extract.h"
 #include "termtide/limits.h"
 
@@ -773,6 +774,55 @@ static void test_text_categories_match_python(void **state)
     free(cats);
 }
 
+/* The SSE2 run skip against the byte-by-byte loop it shortcuts (tt_simd(0),
+ * the loop the cases above pin down): random texts, long enough for the
+ * 16-byte steps, from pieces that stop the skip (every white space, NBSP,
+ * 0xC2 that is no NBSP, hyphens at line ends), must give the same blocks
+ * (kind, text, source offset). */
+static void test_text_simd_same_as_portable(void **state)
+{
+    (void)state;
+    static const char *const pieces[] = {
+        "a", "Revenue", "off", "-", " ", "  ", "\t", "\n", "\n\n", "\r\n", "\r", "\v", "\f",
+        "\xc2\xa0", "\xc2\xa9", "\xc3\xa9", "2031", ",", ".",
+    };
+    const size_t np = sizeof pieces / sizeof *pieces;
+    char text[1200];
+    uint32_t x = 4242u;
+    int simd = tt_simd(1);
+    for (int k = 0; k < 4000; k++) {
+        size_t len = 0;
+        x = x * 1664525u + 1013904223u;
+        size_t n = 1 + (x >> 16) % 150;
+        for (size_t i = 0; i < n; i++) {
+            x = x * 1664525u + 1013904223u;
+            const char *p = pieces[(x >> 12) % np];
+            size_t pl = strlen(p);
+            memcpy(text + len, p, pl);
+            len += pl;
+        }
+        tt_blocks a, b;
+        tt_error err;
+        tt_blocks_init(&a);
+        tt_blocks_init(&b);
+        tt_simd(0);
+        assert_int_equal(tt_extract_text(text, len, 5, &a, "t", &err), TT_OK);
+        tt_simd(1);
+        assert_int_equal(tt_extract_text(text, len, 5, &b, "t", &err), TT_OK);
+        assert_int_equal(a.n, b.n);
+        for (size_t i = 0; i < a.n; i++) {
+            assert_int_equal(a.items[i].kind, b.items[i].kind);
+            assert_int_equal(a.items[i].src_off, b.items[i].src_off);
+            assert_int_equal(a.items[i].len, b.items[i].len);
+            assert_memory_equal(a.text.data + a.items[i].off, b.text.data + b.items[i].off,
+                                a.items[i].len);
+        }
+        tt_blocks_release(&a);
+        tt_blocks_release(&b);
+    }
+    tt_simd(simd);
+}
+
 static void test_text_offsets(void **state)
 {
     (void)state;
@@ -893,6 +943,7 @@ int main(void)
         cmocka_unit_test(test_text_paragraphs),
         cmocka_unit_test(test_text_hyphenation),
         cmocka_unit_test(test_text_categories_match_python),
+        cmocka_unit_test(test_text_simd_same_as_portable),
         cmocka_unit_test(test_text_offsets),
         cmocka_unit_test(test_text_reuses_blocks),
         cmocka_unit_test(test_throughput),

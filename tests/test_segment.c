@@ -16,6 +16,7 @@
 
 #include "termtide/limits.h"
 #include "termtide/segment.h"
+#include "termtide/simd.h"
 
 /* Renders every token of text into out. */
 static void render(const char *text, size_t len, char *out, size_t size,
@@ -527,13 +528,13 @@ static void random_against_reference(int cases, size_t maxch, uint32_t x)
 static void test_random_against_reference(void **state)
 {
     (void)state;
-    int simd = tt_tokenizer_simd(1);
+    int simd = tt_simd(1);
     for (int mode = 0; mode < 2; mode++) {
-        tt_tokenizer_simd(mode == 0);
+        tt_simd(mode == 0);
         random_against_reference(20000, 40, 2025u);
         random_against_reference(3000, 400, 77u);
     }
-    tt_tokenizer_simd(simd);
+    tt_simd(simd);
 }
 
 /* English-like text: invented vocabulary, numbers, punctuation, sentences,

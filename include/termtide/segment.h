@@ -71,11 +71,4 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
 /* Returns 1 and fills tok, or 0 at the end. */
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok);
 
-/* Whether tokenizers classify the bytes of a 64-byte chunk with SSE2 (the
- * default where the compiler targets it, as on x86-64). enable = 0 forces
- * the portable code, which gives the same tokens (for tests and
- * measurements). Returns 1 when SSE2 is in use. Call before starting
- * threads. */
-int tt_tokenizer_simd(int enable);
-
 #endif
