@@ -278,36 +278,30 @@ size_t tt_wordbreak_next(const char *text, size_t len, size_t pos)
 /* ---- chunk masks ---------------------------------------------------------
  *
  * Between tokens and inside ASCII words the walk asks two questions: where
- * does this run of [A-Za-z0-9_] end (and did it hold a letter, a digit), and
- * where is the next byte that is not a plain ASCII separator. Both are
- * answered with bit masks of a 64-byte chunk, made once per chunk (about one
- * instruction per byte with SSE2), then a count of trailing zeros per
- * question, instead of a table lookup per byte:
+ * does this run of [A-Za-z0-9_] end, and where is the next byte that is not
+ * a plain ASCII separator. Both are answered with bit masks of a 64-byte
+ * chunk, made once per chunk (about one instruction per byte with SSE2),
+ * then a count of trailing zeros per question, instead of a table lookup
+ * per byte:
  *   m_word   [A-Za-z0-9_] (tti_wb_ascii_run != 0)
- *   m_letter [A-Za-z]     m_digit [0-9]
  *   m_stop   m_word, bytes >= 0x80, CR, and the ASCII sentence terminals
  *            . ! ? (tti_wb_stage2 & TTI_WB_TERMINAL)
- * Positions at or past the end of the text are in m_stop and in no other
- * mask, so both searches stop at the end. */
+ * Positions at or past the end of the text are in m_stop and not in m_word,
+ * so both searches stop at the end. Whether a run holds a letter or a digit
+ * is read from its bytes, and only for a run that does not start with a
+ * letter (most start with one, and then it is a word). */
 static void chunk_masks_portable(tt_tokenizer *t, const unsigned char *c, size_t n)
 {
-    uint64_t w = 0, l = 0, d = 0, st = 0;
+    uint64_t w = 0, st = 0;
     for (size_t i = 0; i < n; i++) {
         unsigned b = c[i], f = tti_wb_ascii_run[b];
         uint64_t bit = (uint64_t)1 << i;
-        if (f) {
+        if (f)
             w |= bit;
-            if (f & TTI_WB_LETTER)
-                l |= bit;
-            if (f & TTI_WB_RUN_DIGIT)
-                d |= bit;
-        }
         if (f || b >= 0x80 || b == '\r' || (tti_wb_stage2[b] & TTI_WB_TERMINAL))
             st |= bit;
     }
     t->m_word = w;
-    t->m_letter = l;
-    t->m_digit = d;
     t->m_stop = st;
 }
 
@@ -322,25 +316,19 @@ static inline unsigned in_range(__m128i v, int lo, int span)
 
 static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 {
-    uint64_t w = 0, l = 0, d = 0, st = 0;
+    uint64_t w = 0, st = 0;
     for (int k = 0; k < 4; k++) {
         __m128i v = _mm_loadu_si128((const __m128i *)(c + 16 * k));
-        uint64_t letter = in_range(_mm_or_si128(v, _mm_set1_epi8(0x20)), 'a', 26);
-        uint64_t digit = in_range(v, '0', 10);
-        uint64_t under = (unsigned)_mm_movemask_epi8(_mm_cmpeq_epi8(v, _mm_set1_epi8('_')));
+        uint64_t word = in_range(_mm_or_si128(v, _mm_set1_epi8(0x20)), 'a', 26) |
+                        in_range(v, '0', 10) |
+                        (unsigned)_mm_movemask_epi8(_mm_cmpeq_epi8(v, _mm_set1_epi8('_')));
         __m128i other = _mm_or_si128(
             _mm_or_si128(_mm_cmpeq_epi8(v, _mm_set1_epi8('.')), _mm_cmpeq_epi8(v, _mm_set1_epi8('!'))),
             _mm_or_si128(_mm_cmpeq_epi8(v, _mm_set1_epi8('?')), _mm_cmpeq_epi8(v, _mm_set1_epi8('\r'))));
-        uint64_t high = (unsigned)_mm_movemask_epi8(v);
-        uint64_t word = letter | digit | under;
         w |= word << (16 * k);
-        l |= letter << (16 * k);
-        d |= digit << (16 * k);
-        st |= (word | high | (unsigned)_mm_movemask_epi8(other)) << (16 * k);
+        st |= (word | (unsigned)_mm_movemask_epi8(_mm_or_si128(v, other))) << (16 * k);
     }
     t->m_word = w;
-    t->m_letter = l;
-    t->m_digit = d;
     t->m_stop = st;
 }
 #endif
@@ -377,28 +365,27 @@ static inline unsigned chunk_at(tt_tokenizer *t, size_t p)
 
 /* The end of the run of [A-Za-z0-9_] starting at p; *seen gets SEEN_LETTER
  * and SEEN_DIGIT for what the run holds. */
-static inline size_t word_run_end(tt_tokenizer *t, size_t p, unsigned *seen)
+static inline size_t word_run_end(tt_tokenizer *t, const unsigned char *s, size_t p,
+                                  unsigned *seen)
 {
-    uint64_t letter = 0, digit = 0;
+    size_t start = p;
     for (;;) {
         unsigned i = chunk_at(t, p);
         uint64_t past = ~t->m_word >> i; /* bits i.. of the chunk: not in the run */
-        uint64_t span;
-        size_t n;
         if (past) {
-            n = (size_t)__builtin_ctzll(past);
-            span = (((uint64_t)1 << n) - 1) << i;
-        } else {
-            n = 64 - i;
-            span = ~(uint64_t)0 << i;
-        }
-        letter |= t->m_letter & span;
-        digit |= t->m_digit & span;
-        p += n;
-        if (past)
+            p += (size_t)__builtin_ctzll(past);
             break;
+        }
+        p += 64 - i;
     }
-    *seen = (letter ? SEEN_LETTER : 0) | (digit ? SEEN_DIGIT : 0);
+    unsigned f = tti_wb_ascii_run[s[start]];
+    if (f & TTI_WB_LETTER) {
+        *seen = SEEN_LETTER;
+        return p;
+    }
+    for (size_t q = start + 1; q < p; q++)
+        f |= tti_wb_ascii_run[s[q]];
+    *seen = ((f & TTI_WB_LETTER) ? SEEN_LETTER : 0) | ((f & TTI_WB_RUN_DIGIT) ? SEEN_DIGIT : 0);
     return p;
 }
 
@@ -424,7 +411,7 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
     t->prev_off = t->prev_end = (size_t)-1;
     t->pending_suffix = 0;
     t->chunk = (size_t)-1;
-    t->m_word = t->m_letter = t->m_digit = t->m_stop = 0;
+    t->m_word = t->m_stop = 0;
 }
 
 /* Abbreviations whose period never ends a sentence: titles, "No.", "U.S.",
@@ -525,7 +512,7 @@ static size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, size_t len
     unsigned run = 0, part;
     size_t q = p;
     for (;;) {
-        q = word_run_end(t, q, &part);
+        q = word_run_end(t, s, q, &part);
         run |= part;
         if (q >= len)
             break;

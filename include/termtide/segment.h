@@ -63,7 +63,7 @@ typedef struct tt_tokenizer {
     /* Byte classes of one 64-byte chunk of the text (segment.c), bit i for
      * text[chunk + i]: filled on demand, as the walk reaches a chunk. */
     size_t chunk;              /* offset of the chunk, (size_t)-1 none yet */
-    unsigned long long m_word, m_letter, m_digit, m_stop;
+    unsigned long long m_word, m_stop;
 } tt_tokenizer;
 
 void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
