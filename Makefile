@@ -13,7 +13,7 @@ CC      ?= cc
 PYTHON  ?= /usr/bin/python3
 VERSION := 0.1.0
 
-PKGS    := libxml-2.0 libutf8proc zlib libpcre2-8 freetype2 sqlite3
+PKGS    := libxml-2.0 libutf8proc zlib libdeflate libpcre2-8 freetype2 sqlite3
 PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS))
 PKG_LIBS   := $(shell pkg-config --libs $(PKGS)) -lstemmer -lpthread -lm
 TEST_LIBS  := $(shell pkg-config --libs cmocka)

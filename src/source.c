@@ -18,12 +18,16 @@
  *
  * Reading uses read(2) in large chunks. A regular file's size (fstat) sizes
  * the buffer once, so an ordinary file costs one allocation and one pass.
- * Gzip is recognised by its magic bytes 1f 8b (RFC 1952, section 2.3.1) and
- * inflated while it is read, so the compressed bytes are never all held in
- * memory; concatenated members (RFC 1952, section 2.2) are inflated in turn,
- * and zero bytes after the last member (tape padding, which gzip(1) also
- * ignores) are accepted. The limit is checked on the inflated size, which
- * bounds a gzip bomb. */
+ * Gzip is recognised by its magic bytes 1f 8b (RFC 1952, section 2.3.1).
+ * The compressed bytes are read whole (about a third of the text's size for
+ * prose), then inflated by libdeflate straight into the output buffer, a
+ * member at a time; concatenated members (RFC 1952, section 2.2) are
+ * inflated in turn, and zero bytes after the last member (tape padding,
+ * which gzip(1) also ignores) are accepted. Anything that path does not
+ * finish cleanly (corrupt or truncated data, the limit, other trailing
+ * bytes) is inflated again by zlib's streaming inflate, which names the
+ * exact cause. The limit is checked on the inflated size, which bounds a
+ * gzip bomb. */
 #include <dirent.h>
 #include <errno.h>
 #include <fcntl.h>
@@ -32,7 +36,10 @@
 #include <sys/stat.h>
 #include <sys/types.h>
 #include <unistd.h>
+#include <pthread.h>
 #include <zlib.h>
+
+#include <libdeflate.h>
 
 #include "termtide/source.h"
 #include "tt_internal.h"
@@ -40,8 +47,7 @@
 /* Largest single read(2) request: Linux returns at most 0x7ffff000 bytes per
  * call; a smaller request keeps the loop simple and portable. */
 #define READ_CHUNK_MAX ((size_t)1 << 28)
-/* Compressed bytes read per step and the smallest output growth step. */
-#define GZ_IN_CHUNK ((size_t)256 * 1024)
+/* The smallest output growth step. */
 #define GROW_MIN ((size_t)256 * 1024)
 /* Largest first guess at a gzip file's inflated size; doubling does the rest. */
 #define GZ_GUESS_MAX ((size_t)64 * 1024 * 1024)
@@ -398,19 +404,16 @@ static int all_zero(const unsigned char *p, size_t n)
     return 1;
 }
 
-/* Inflates gzip from fd into out; head holds the first nhead bytes already
- * read. */
-static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size_t hint,
-                           size_t limit, tt_buf *out, tt_sha256 *hash, const char *name,
-                           tt_error *err)
+/* The streaming path: zlib inflates the n compressed bytes at comp into
+ * out, growing it step by step, and checks every member's end, the limit and
+ * the bytes after the last member with exact messages. */
+static tt_status inflate_stream(const unsigned char *comp, size_t n, size_t limit, tt_buf *out,
+                                const char *name, tt_error *err)
 {
     z_stream zs;
-    unsigned char *in = tt_malloc(GZ_IN_CHUNK);
     tt_status rc = TT_OK;
-    int eof = 0, between = 0;
+    int between = 0;
 
-    if (!in)
-        return tt_error_set(err, TT_ENOMEM, name, -1, "out of memory");
     memset(&zs, 0, sizeof zs);
     zs.zalloc = z_alloc;
     zs.zfree = z_free;
@@ -418,43 +421,23 @@ static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size
      * automatically (zlib manual, inflateInit2). */
     int zr = inflateInit2(&zs, 15 + 32);
     if (zr != Z_OK) {
-        tt_free(in);
         if (zr == Z_MEM_ERROR)
             return tt_error_set(err, TT_ENOMEM, name, -1, "out of memory");
         return tt_error_set(err, TT_EIO, name, -1, "cannot start gzip decoder");
     }
-    memcpy(in, head, nhead);
-    zs.next_in = in;
-    zs.avail_in = (uInt)nhead;
-    if (hint) {
+    zs.next_in = (unsigned char *)comp; /* zlib reads through a non-const pointer */
+    zs.avail_in = (uInt)n;              /* n <= TT_LIMIT_FILE_BYTES < 4 GiB */
+    if (n) {
         /* Text compresses some 4-8 times; start near the likely size. */
-        size_t guess = hint > GZ_GUESS_MAX / 4 ? GZ_GUESS_MAX : hint * 4;
+        size_t guess = n > GZ_GUESS_MAX / 4 ? GZ_GUESS_MAX : n * 4;
         size_t room;
         if ((rc = ensure_room(out, guess, limit, &room)) != TT_OK)
             goto fail_status;
     }
 
     for (;;) {
-        /* Top up the input when it ran dry (or, between members, when fewer
-         * than the two magic bytes are left). */
-        if (!eof && (zs.avail_in == 0 || (between && zs.avail_in < 2))) {
-            size_t keep = zs.avail_in;
-            memmove(in, zs.next_in, keep);
-            ssize_t r = read_some(fd, in + keep, GZ_IN_CHUNK - keep);
-            if (r < 0) {
-                rc = read_error(err, name, errno);
-                goto done;
-            }
-            if (hash)
-                tt_sha256_update(hash, in + keep, (size_t)r);
-            if (r == 0)
-                eof = 1;
-            zs.next_in = in;
-            zs.avail_in = (uInt)(keep + (size_t)r);
-            continue;
-        }
         if (between) {
-            if (zs.avail_in == 0 && eof)
+            if (zs.avail_in == 0)
                 break;
             if (zs.avail_in >= 2 && zs.next_in[0] == 0x1f && zs.next_in[1] == 0x8b) {
                 if (inflateReset(&zs) != Z_OK) {
@@ -464,12 +447,8 @@ static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size
                 between = 0;
                 continue;
             }
-            if (all_zero(zs.next_in, zs.avail_in)) {
-                zs.avail_in = 0;
-                if (eof)
-                    break;
-                continue;
-            }
+            if (all_zero(zs.next_in, zs.avail_in))
+                break;
             rc = tt_error_set(err, TT_EIO, name, -1,
                               "corrupt gzip data: trailing bytes after the last member");
             goto done;
@@ -519,7 +498,7 @@ static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size
         /* Z_OK or Z_BUF_ERROR: inflate wants more input or more room. With
          * room left and no input left at end of file, the member never
          * ended. */
-        if (zs.avail_out > 0 && zs.avail_in == 0 && eof) {
+        if (zs.avail_out > 0 && zs.avail_in == 0) {
             rc = tt_error_set(err, TT_EIO, name, -1, "truncated gzip data");
             goto done;
         }
@@ -537,7 +516,93 @@ fail_status:
         rc = tt_error_set(err, rc, name, -1, "out of memory");
 done:
     inflateEnd(&zs);
-    tt_free(in);
+    return rc;
+}
+
+/* libdeflate allocates through tt_malloc and tt_free, set once before its
+ * first decompressor exists. */
+static pthread_once_t deflate_once = PTHREAD_ONCE_INIT;
+
+static void deflate_allocator(void)
+{
+    libdeflate_set_memory_allocator(tt_malloc, tt_free);
+}
+
+/* The fast path: libdeflate inflates each member of the n compressed bytes
+ * at comp straight into out, about twice as fast as zlib. The output room
+ * starts at the last member's ISIZE (RFC 1952, section 2.3.1: the size mod
+ * 2^32, the whole size for a file of one member) or 4 times the compressed
+ * size, whichever is larger, and doubles when a member does not fit (the
+ * member is then inflated again). Returns 1 with out holding the text, or 0
+ * to leave the file to the streaming path: any error, the limit reached,
+ * bytes after the last member other than zeros, out of memory. That path
+ * gives each case its exact message. */
+static int inflate_whole(const unsigned char *comp, size_t n, size_t limit, tt_buf *out)
+{
+    pthread_once(&deflate_once, deflate_allocator);
+    struct libdeflate_decompressor *d = libdeflate_alloc_decompressor();
+    if (!d)
+        return 0;
+    int ok = 0;
+    size_t off = 0, room;
+    size_t guess = n >= 18 ? (size_t)comp[n - 4] | (size_t)comp[n - 3] << 8 |
+                                 (size_t)comp[n - 2] << 16 | (size_t)comp[n - 1] << 24
+                           : 0;
+    if (guess < 4 * n)
+        guess = 4 * n;
+    if (ensure_room(out, guess < limit ? guess : limit, limit, &room) != TT_OK)
+        goto done;
+    for (;;) {
+        size_t in_used = 0, out_used = 0;
+        enum libdeflate_result r = libdeflate_gzip_decompress_ex(
+            d, comp + off, n - off, out->data + out->len, room, &in_used, &out_used);
+        if (r == LIBDEFLATE_INSUFFICIENT_SPACE) {
+            if (room >= limit - out->len ||
+                ensure_room(out, room * 2 + 1, limit, &room) != TT_OK)
+                goto done;
+            continue;
+        }
+        if (r != LIBDEFLATE_SUCCESS)
+            goto done;
+        out->len += out_used;
+        out->data[out->len] = '\0';
+        off += in_used;
+        if (off == n || all_zero(comp + off, n - off)) {
+            ok = 1;
+            goto done;
+        }
+        if (n - off < 2 || comp[off] != 0x1f || comp[off + 1] != 0x8b ||
+            ensure_room(out, GROW_MIN, limit, &room) != TT_OK)
+            goto done;
+    }
+done:
+    libdeflate_free_decompressor(d);
+    return ok;
+}
+
+/* Gzip from fd into out; head holds the first nhead bytes already read. The
+ * compressed bytes are read whole (and hashed), then inflated by the fast
+ * path, or else by the streaming one. */
+static tt_status read_plain(int fd, const unsigned char *head, size_t nhead, size_t hint,
+                            size_t limit, tt_buf *out, const char *name, tt_error *err);
+
+static tt_status read_gzip(int fd, const unsigned char *head, size_t nhead, size_t hint,
+                           size_t limit, tt_buf *out, tt_sha256 *hash, const char *name,
+                           tt_error *err)
+{
+    tt_buf comp;
+    tt_buf_init(&comp, 0);
+    tt_status rc = read_plain(fd, head, nhead, hint, TT_LIMIT_FILE_BYTES, &comp, name, err);
+    if (rc == TT_OK) {
+        if (hash)
+            tt_sha256_update(hash, comp.data, comp.len);
+        const unsigned char *c = (const unsigned char *)comp.data;
+        if (!inflate_whole(c, comp.len, limit, out)) {
+            tt_buf_reset(out);
+            rc = inflate_stream(c, comp.len, limit, out, name, err);
+        }
+    }
+    tt_buf_release(&comp);
     return rc;
 }
 
@@ -642,8 +707,6 @@ tt_status tt_source_read_hashed(const char *path, tt_buf *out, int *was_gzip, tt
     if (nhead == 2 && head[0] == 0x1f && head[1] == 0x8b) {
         if (was_gzip)
             *was_gzip = 1;
-        if (hash)
-            tt_sha256_update(hash, head, nhead);
         rc = read_gzip(fd, head, nhead, hint, limit, out, hash, name, err);
     } else if (hint > limit) {
         rc = limit_error(err, name, limit, 0);

@@ -19,6 +19,7 @@
 
 #include "termtide/alloc.h"
 #include "termtide/limits.h"
+#include "termtide/sha256.h"
 #include "termtide/source.h"
 
 static char tmp_root[256];
@@ -490,6 +491,50 @@ static void test_gzip(void **state)
     tt_buf_release(&b);
 }
 
+/* Members whose size the reader cannot guess from the file: a first member
+ * of 3 MB of repeated prose (compressed some 300 times, so its size is far
+ * past 4 times the file's) and a short last one (whose ISIZE, the hint read
+ * from the file's end, is tiny), then zero padding; against Python's
+ * gzip.decompress. */
+static void test_gzip_sizes_unguessable(void **state)
+{
+    (void)state;
+    const char *line = "Coil demand held steady while freight costs declined again.\n";
+    size_t big = 3u << 20, ll = strlen(line);
+    char *text = malloc(big);
+    assert_non_null(text);
+    for (size_t i = 0; i < big; i++)
+        text[i] = line[i % ll];
+    size_t cap = big / 4;
+    unsigned char *gz = malloc(cap);
+    assert_non_null(gz);
+    size_t n1 = gzip_bytes(text, big, gz, cap);
+    size_t n2 = gzip_bytes("tail\n", 5, gz + n1, cap - n1);
+    memset(gz + n1 + n2, 0, 16);
+    assert_true(n1 * 4 < big);
+    put_file("unguessable.gz", gz, n1 + n2 + 16);
+    char p[512], cmd[1200];
+    tt_buf b;
+    tt_error err;
+    int was = 0;
+    tt_buf_init(&b, 0);
+    path_of(p, sizeof p, "unguessable.gz");
+    assert_int_equal(tt_source_read(p, &b, &was, &err), TT_OK);
+    assert_int_equal(b.len, big + 5);
+    snprintf(cmd, sizeof cmd,
+             "%s -c \"import gzip,hashlib,sys; print(hashlib.sha256(gzip.decompress("
+             "open(sys.argv[1],'rb').read())).hexdigest())\" '%s'",
+             tt_test_python(), p);
+    char *ref = run_capture(cmd);
+    char hex[65];
+    tt_sha256_hex(b.data, b.len, hex);
+    assert_memory_equal(hex, ref, 64);
+    free(ref);
+    free(gz);
+    free(text);
+    tt_buf_release(&b);
+}
+
 /* The size limit, lowered through the output buffer's own cap: exactly at
  * the limit is read, one byte more is refused; a gzip bomb stops at the
  * limit. */
@@ -620,6 +665,7 @@ int main(void)
         cmocka_unit_test(test_read_plain),
         cmocka_unit_test(test_read_errors),
         cmocka_unit_test(test_gzip),
+        cmocka_unit_test(test_gzip_sizes_unguessable),
         cmocka_unit_test(test_limits),
         cmocka_unit_test(test_out_of_memory),
     };
