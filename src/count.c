@@ -14,25 +14,61 @@
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
 #include "termtide/segment.h"
-#include "tt_internal.h"
+#include "normalize_internal.h"
 #include "termtable_internal.h"
+#include "tt_internal.h"
 
 #define MAX_N 3
 
-/* The token cache: a direct-mapped table from a token's raw bytes (up to
- * CACHE_RAW of them) to what the slow path makes of it: the final term
- * (normalized, stemmed if asked), its table hash, and whether it is a
- * stop-word or too short. Normalization is a pure function of the raw
- * bytes, so an entry never goes stale; word frequencies follow Zipf's law,
- * so a few thousand entries catch most tokens and skip NFKC, case folding,
- * the stop-word lookup and SipHash for them. The cache index is an unkeyed
- * multiply-shift hash: crafted collisions only cause misses (the slow path),
- * never wrong terms, because the whole raw key is compared. */
-#define CACHE_BITS 12
+/* Token caches: from a token's raw bytes to what the slow path makes of
+ * it: the final term (normalized, stemmed if asked), its table hash, and
+ * whether it is a stop-word or too short. Normalization is a pure function
+ * of the raw bytes, so an entry never goes stale; word frequencies follow
+ * Zipf's law, so a few thousand entries catch most tokens and skip NFKC,
+ * case folding, the stop-word lookup and SipHash for them. Slots are picked
+ * by an unkeyed multiply-shift hash: crafted collisions only cause misses
+ * (the slow path), never wrong terms, because the whole key is compared.
+ *
+ * The ASCII cache (not used with stemming) takes ASCII tokens of up to
+ * ASCII_RAW bytes, the bulk of filing text. For ASCII, tt_normalize folds
+ * byte by byte (lowercase, '`' → '\'') and then cuts the term out of the
+ * folded token (tti_term_bounds), so a token and its lowercased form give
+ * the same term: the key is the lowercased token ("The" and "the" share an
+ * entry), and since the term is a piece of the key, an entry holds only
+ * where the term starts and its length. That makes an entry 32 bytes, so a
+ * 64-byte line holds a set of two ways (way 0 the more recently used; a hit
+ * in way 1 swaps them), which keeps Zipf's head resident where a
+ * direct-mapped table would let two common words evict each other. Tokens
+ * holding '`' (whose term is not a piece of the key) are never entered.
+ * Cost of a hit: two masked 8-byte loads, a SWAR lowercase, one line.
+ *
+ * The general cache takes every other token of up to CACHE_RAW bytes (and
+ * all of them with stemming): direct-mapped, one 64-byte entry per line,
+ * keyed by the raw bytes, the term stored beside them. */
+#define ASCII_BITS 12 /* 4096 sets of two ways: 256 KB */
+#define ASCII_RAW 16
+#define CACHE_BITS 12 /* 4096 entries: 256 KB */
 #define CACHE_RAW 24
 #define CACHE_STOP 1u
 #define CACHE_SHORT 2u
 #define CACHE_EMPTY 4u
+
+typedef struct ascii_way {
+    uint64_t key[2];  /* the token, ASCII-lowercased, zero-padded */
+    uint64_t hash;    /* tti_termtable_hash(term) */
+    uint8_t raw_len;  /* 0: unused way */
+    uint8_t term_off; /* the term is key bytes [term_off, term_off + term_len) */
+    uint8_t term_len;
+    uint8_t flags;
+    uint32_t unused;
+} ascii_way;
+
+typedef struct ascii_set {
+    ascii_way way[2]; /* way[0] the more recently used */
+} ascii_set;
+
+_Static_assert(sizeof(ascii_set) == 64, "one set of the ASCII cache per 64-byte line");
+_Static_assert(ASCII_RAW == sizeof(((ascii_way *)0)->key), "an ASCII key is two words");
 
 typedef struct cache_entry {
     uint64_t raw[CACHE_RAW / 8]; /* the raw token, zero-padded */
@@ -62,6 +98,8 @@ struct tt_counter {
     size_t win_head; /* index of the oldest */
     cache_entry *cache; /* 1 << CACHE_BITS entries, 64-byte aligned */
     void *cache_mem;    /* the allocation cache points into */
+    ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
+    void *ascii_mem;
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -95,6 +133,14 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
         return NULL;
     }
     c->cache = (cache_entry *)(((uintptr_t)c->cache_mem + 63) & ~(uintptr_t)63);
+    if (!opt->stem) {
+        c->ascii_mem = tt_calloc(((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii);
+        if (!c->ascii_mem) {
+            tt_counter_free(c);
+            return NULL;
+        }
+        c->ascii = (ascii_set *)(((uintptr_t)c->ascii_mem + 63) & ~(uintptr_t)63);
+    }
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
         if (!c->stemmer) {
@@ -117,6 +163,7 @@ void tt_counter_free(tt_counter *c)
     for (int i = 0; i < MAX_N; i++)
         tt_buf_release(&c->win[i].term);
     tt_free(c->cache_mem);
+    tt_free(c->ascii_mem);
     tt_free(c);
 }
 
@@ -172,11 +219,29 @@ static tt_status push_window(tt_counter *c, const char *term, size_t len, int ed
     return tt_buf_append(&c->win[slot].term, term, len);
 }
 
-/* What a token becomes: its final term (a view into the cache or into a
- * counter buffer, valid until the next token), the term's table hash, and
- * CACHE_* flags. TT_ELIMIT when normalization outgrows its buffer. */
-static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_kind kind,
-                         const char **term, size_t *tlen, uint64_t *hash, unsigned *flags)
+/* The flags of a term (a view of n bytes), and its table hash. */
+static unsigned classify(const tt_counter *c, const char *t, size_t n, uint64_t *hash)
+{
+    if (n == 0) {
+        *hash = 0;
+        return CACHE_EMPTY;
+    }
+    uint64_t h = tti_termtable_hash(t, n);
+    *hash = h;
+    if (c->opt.stopwords && tti_termtable_get_hashed(c->opt.stopwords, t, n, h))
+        return CACHE_STOP;
+    if (c->opt.min_length > 1 && tt_utf8_length(t, n) < c->opt.min_length)
+        return CACHE_SHORT;
+    return 0;
+}
+
+/* What a token becomes, through the general cache and the slow path:
+ * its final term (a view into the cache or into a counter buffer, valid
+ * until the next token), the term's table hash, and CACHE_* flags.
+ * TT_ELIMIT when normalization outgrows its buffer. */
+static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
+                                 tt_token_kind kind, const char **term, size_t *tlen,
+                                 uint64_t *hash, unsigned *flags)
 {
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
@@ -195,26 +260,17 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
     tt_status s = tt_normalize(&c->norm, raw, len, &c->normal);
     if (s)
         return s;
-    unsigned f = 0;
     const char *t = c->normal.data;
     size_t n = c->normal.len;
-    uint64_t h = 0;
-    if (n == 0) {
-        f = CACHE_EMPTY;
-    } else {
+    uint64_t h;
+    unsigned f = classify(c, t, n, &h);
+    if (n && c->stemmer && kind == TT_TOKEN_WORD) {
+        s = tt_stem(c->stemmer, t, n, &c->stemmed);
+        if (s)
+            return s;
+        t = c->stemmed.data;
+        n = c->stemmed.len;
         h = tti_termtable_hash(t, n);
-        if (c->opt.stopwords && tti_termtable_get_hashed(c->opt.stopwords, t, n, h))
-            f = CACHE_STOP;
-        else if (c->opt.min_length > 1 && tt_utf8_length(t, n) < c->opt.min_length)
-            f = CACHE_SHORT;
-        if (c->stemmer && kind == TT_TOKEN_WORD) {
-            s = tt_stem(c->stemmer, t, n, &c->stemmed);
-            if (s)
-                return s;
-            t = c->stemmed.data;
-            n = c->stemmed.len;
-            h = tti_termtable_hash(t, n);
-        }
     }
     if (e && n <= CACHE_RAW) {
         memcpy(e->raw, key, sizeof key);
@@ -230,6 +286,134 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
     *hash = h;
     *flags = f;
     return TT_OK;
+}
+
+#define HIGH_BITS 0x8080808080808080ULL
+
+/* For len bytes (0..16): which bytes of the two key words to keep. */
+static const uint64_t key_mask[ASCII_RAW + 1][2] = {
+    { 0x0000000000000000ULL, 0x0000000000000000ULL },
+    { 0x00000000000000ffULL, 0x0000000000000000ULL },
+    { 0x000000000000ffffULL, 0x0000000000000000ULL },
+    { 0x0000000000ffffffULL, 0x0000000000000000ULL },
+    { 0x00000000ffffffffULL, 0x0000000000000000ULL },
+    { 0x000000ffffffffffULL, 0x0000000000000000ULL },
+    { 0x0000ffffffffffffULL, 0x0000000000000000ULL },
+    { 0x00ffffffffffffffULL, 0x0000000000000000ULL },
+    { 0xffffffffffffffffULL, 0x0000000000000000ULL },
+    { 0xffffffffffffffffULL, 0x00000000000000ffULL },
+    { 0xffffffffffffffffULL, 0x000000000000ffffULL },
+    { 0xffffffffffffffffULL, 0x0000000000ffffffULL },
+    { 0xffffffffffffffffULL, 0x00000000ffffffffULL },
+    { 0xffffffffffffffffULL, 0x000000ffffffffffULL },
+    { 0xffffffffffffffffULL, 0x0000ffffffffffffULL },
+    { 0xffffffffffffffffULL, 0x00ffffffffffffffULL },
+    { 0xffffffffffffffffULL, 0xffffffffffffffffULL },
+};
+
+/* The first len (1..ASCII_RAW) bytes of raw as two zero-padded words, the
+ * bytes in memory order (the term is read back out of them). When 16 bytes
+ * can be read (end is the end of the text), two loads and two masks. */
+static inline void ascii_key(const char *raw, size_t len, const char *end, uint64_t k[2])
+{
+#if defined(__BYTE_ORDER__) && __BYTE_ORDER__ == __ORDER_LITTLE_ENDIAN__
+    if ((size_t)(end - raw) >= ASCII_RAW) {
+        memcpy(&k[0], raw, 8);
+        memcpy(&k[1], raw + 8, 8);
+        k[0] &= key_mask[len][0];
+        k[1] &= key_mask[len][1];
+        return;
+    }
+    k[0] = tti_load_upto8(raw, len);
+    k[1] = len > 8 ? tti_load_upto8(raw + 8, len - 8) : 0;
+#else
+    (void)end;
+    unsigned char b[ASCII_RAW] = { 0 };
+    memcpy(b, raw, len);
+    memcpy(k, b, sizeof b);
+#endif
+}
+
+/* ASCII lowercase of eight bytes at once (each byte < 0x80, so no sum
+ * carries into the next byte): bit 7 of c + 0x3f is set when c >= 'A', of
+ * c + 0x25 when c > 'Z'; an upper-case byte gains 0x20. */
+static inline uint64_t ascii_lower8(uint64_t x)
+{
+    uint64_t upper = (x + 0x3f3f3f3f3f3f3f3fULL) & ~(x + 0x2525252525252525ULL) & HIGH_BITS;
+    return x | (upper >> 2);
+}
+
+static inline size_t ascii_slot(const uint64_t k[2], size_t len)
+{
+    uint64_t mix = (k[0] * 0x9E3779B97F4A7C15ULL) ^ (k[1] * 0xC2B2AE3D27D4EB4FULL) ^ len;
+    return (size_t)((mix ^ (mix >> 29)) >> (64 - ASCII_BITS));
+}
+
+static inline int ascii_way_holds(const ascii_way *w, const uint64_t k[2], size_t len)
+{
+    return w->raw_len == len && w->key[0] == k[0] && w->key[1] == k[1];
+}
+
+/* A miss in the ASCII cache: what tt_normalize does for an ASCII token
+ * (fold, then tti_term_bounds) done on the lowercased key, entered as way 0
+ * of set (way 0 moving to way 1). Returns 0, entering nothing, when the
+ * token holds '`' (tt_normalize makes it '\'', so the term would not be a
+ * piece of the key). */
+static int ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2], size_t len)
+{
+    unsigned char low[ASCII_RAW];
+    memcpy(low, k, sizeof low);
+    if (memchr(low, '`', len))
+        return 0;
+    size_t a, b;
+    tti_term_bounds(low, len, &a, &b);
+    uint64_t h;
+    unsigned f = classify(c, (const char *)low + a, b - a, &h);
+    set->way[1] = set->way[0];
+    ascii_way *w = &set->way[0];
+    w->key[0] = k[0];
+    w->key[1] = k[1];
+    w->hash = h;
+    w->raw_len = (uint8_t)len;
+    w->term_off = (uint8_t)a;
+    w->term_len = (uint8_t)(b - a);
+    w->flags = (uint8_t)f;
+    return 1;
+}
+
+/* What a token (raw, len bytes; end: the end of its text) becomes: its
+ * final term (a view into a cache or into a counter buffer, valid until the
+ * next token), the term's table hash, and CACHE_* flags. TT_ELIMIT when
+ * normalization outgrows its buffer. */
+static inline tt_status resolve(tt_counter *c, const char *raw, size_t len, const char *end,
+                                tt_token_kind kind, const char **term, size_t *tlen,
+                                uint64_t *hash, unsigned *flags)
+{
+    if (c->ascii && len - 1 < ASCII_RAW) {
+        uint64_t k[2];
+        ascii_key(raw, len, end, k);
+        if (((k[0] | k[1]) & HIGH_BITS) == 0) {
+            k[0] = ascii_lower8(k[0]);
+            k[1] = ascii_lower8(k[1]);
+            ascii_set *set = &c->ascii[ascii_slot(k, len)];
+            ascii_way *w = &set->way[0];
+            if (!ascii_way_holds(w, k, len)) {
+                if (ascii_way_holds(&set->way[1], k, len)) {
+                    ascii_way tmp = set->way[1];
+                    set->way[1] = *w;
+                    *w = tmp;
+                } else if (!ascii_fill(c, set, k, len)) {
+                    return resolve_general(c, raw, len, kind, term, tlen, hash, flags);
+                }
+            }
+            *term = (const char *)w->key + w->term_off;
+            *tlen = w->term_len;
+            *hash = w->hash;
+            *flags = w->flags;
+            return TT_OK;
+        }
+    }
+    return resolve_general(c, raw, len, kind, term, tlen, hash, flags);
 }
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
@@ -262,7 +446,7 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         size_t tlen;
         uint64_t h;
         unsigned flags;
-        s = resolve(c, text + tok.off, tok.len, tok.kind, &term, &tlen, &h, &flags);
+        s = resolve(c, text + tok.off, tok.len, text + len, tok.kind, &term, &tlen, &h, &flags);
         if (s == TT_ELIMIT) {
             /* NFKC can expand a token many times over (one U+FDFA becomes
              * 18 characters); a term past the buffer cap is skipped like an
