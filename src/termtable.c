@@ -9,8 +9,14 @@
  *
  * Hash: SipHash-1-3 with a 128-bit key (Aumasson & Bernstein 2012, "SipHash:
  * a fast short-input PRF"), so crafted terms cannot force collisions without
- * the key. The key is process-wide; output never follows hash order, it is
- * sorted by count then term (tt_termtable_sorted).
+ * the key. The key is process-wide, so a hash stored in one table is valid
+ * in every other (merging reuses it instead of hashing again); output never
+ * follows hash order, it is sorted by count then term (tt_termtable_sorted).
+ *
+ * A probe compares the stored 64-bit hash first and reads the term's bytes
+ * only when it agrees; the probe loop makes no calls, and inserting a new
+ * term is a separate function, so counting a term already in the table
+ * (most of the work) runs a short path.
  *
  * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
  * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
@@ -183,20 +189,26 @@ static tt_status grow(tt_termtable *t)
     return TT_OK;
 }
 
-/* Byte equality for short terms without a library call: overlapping
- * fixed-size loads cover any length from 1 to 16; longer terms use memcmp.
+/* Byte equality without a library call, so that find stays a leaf
+ * function (a call in its loop would make every probe pay for saving and
+ * restoring registers): overlapping fixed-size loads cover any length from
+ * 4 to 16, longer terms go 8 bytes at a time with an overlapping last word.
  * Only called when the hashes already match, so it nearly always succeeds. */
 static inline int same_bytes(const char *a, const char *b, size_t n)
 {
     uint64_t x, y, u, v;
-    if (n >= 8 && n <= 16) {
-        memcpy(&x, a, 8);
-        memcpy(&y, b, 8);
+    if (n >= 8) {
+        for (size_t i = 0; i + 8 < n; i += 8) {
+            memcpy(&x, a + i, 8);
+            memcpy(&y, b + i, 8);
+            if (x != y)
+                return 0;
+        }
         memcpy(&u, a + n - 8, 8);
         memcpy(&v, b + n - 8, 8);
-        return ((x ^ y) | (u ^ v)) == 0;
+        return u == v;
     }
-    if (n >= 4 && n < 8) {
+    if (n >= 4) {
         uint32_t x4, y4, u4, v4;
         memcpy(&x4, a, 4);
         memcpy(&y4, b, 4);
@@ -204,25 +216,26 @@ static inline int same_bytes(const char *a, const char *b, size_t n)
         memcpy(&v4, b + n - 4, 4);
         return ((x4 ^ y4) | (u4 ^ v4)) == 0;
     }
-    if (n < 4) {
-        for (size_t i = 0; i < n; i++)
-            if (a[i] != b[i])
-                return 0;
-        return 1;
-    }
-    return memcmp(a, b, n) == 0;
+    for (size_t i = 0; i < n; i++)
+        if (a[i] != b[i])
+            return 0;
+    return 1;
 }
 
-static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
+/* The slot holding term, or the empty slot where it would go. The stored
+ * hash is compared first: a probe reads the term's bytes only when all 64
+ * bits agree. */
+static inline slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
 {
-    size_t i = (size_t)h & (t->cap - 1);
+    size_t mask = t->cap - 1;
+    size_t i = (size_t)h & mask;
     for (;;) {
         slot *s = &t->slots[i];
+        if (s->hash == h && s->len == len && s->term && same_bytes(s->term, term, len))
+            return s;
         if (!s->term)
             return s;
-        if (s->hash == h && s->len == len && same_bytes(s->term, term, len))
-            return s;
-        i = (i + 1) & (t->cap - 1);
+        i = (i + 1) & mask;
     }
 }
 
@@ -237,15 +250,12 @@ tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64
                                     count);
 }
 
-tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len, uint64_t h,
-                                   uint64_t count)
+/* A term not in the table yet: s is the empty slot find gave for it. Kept
+ * out of tti_termtable_add_hashed so that the path of a term already
+ * counted, by far the commoner, stays short. */
+static tt_status insert(tt_termtable *t, slot *s, const char *term, size_t len, uint64_t h,
+                        uint64_t count)
 {
-    slot *s = find(t, term, len, h);
-    if (s->term) {
-        s->count += count;
-        t->total += count;
-        return TT_OK;
-    }
     if (t->distinct >= TT_LIMIT_DISTINCT_TERMS)
         return TT_ELIMIT;
     if ((t->distinct + 1) * 10 > t->cap * 7) {
@@ -266,6 +276,17 @@ tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len
     return TT_OK;
 }
 
+tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len, uint64_t h,
+                                   uint64_t count)
+{
+    slot *s = find(t, term, len, h);
+    if (!s->term)
+        return insert(t, s, term, len, h, count);
+    s->count += count;
+    t->total += count;
+    return TT_OK;
+}
+
 uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
 {
     return tti_termtable_get_hashed(t, term, len, siphash13((const unsigned char *)term, len));
@@ -280,13 +301,15 @@ uint64_t tti_termtable_get_hashed(const tt_termtable *t, const char *term, size_
 size_t tt_termtable_distinct(const tt_termtable *t) { return t->distinct; }
 uint64_t tt_termtable_total(const tt_termtable *t) { return t->total; }
 
+/* Every table hashes with the one process-wide key, so the hash stored in
+ * src's slot is the one dst would compute. */
 tt_status tt_termtable_merge(tt_termtable *dst, const tt_termtable *src)
 {
     for (size_t i = 0; i < src->cap; i++) {
         const slot *s = &src->slots[i];
         if (!s->term)
             continue;
-        tt_status st = tt_termtable_add(dst, s->term, s->len, s->count);
+        tt_status st = tti_termtable_add_hashed(dst, s->term, s->len, s->hash, s->count);
         if (st)
             return st;
     }
