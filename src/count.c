@@ -10,6 +10,13 @@
  * n-gram). At a sentence or block start the window empties; a left-out
  * number empties it too, since "revenue of 1,200 units" holds no n-gram
  * across the figure. Complexity O(tokens × ngram_max). */
+#if defined(__x86_64__) && defined(__SSE2__)
+#include <emmintrin.h>
+#define TT_COUNT_SSE2 1
+#else
+#define TT_COUNT_SSE2 0
+#endif
+
 #include "termtide/count.h"
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
@@ -40,7 +47,9 @@
  * in way 1 swaps them), which keeps Zipf's head resident where a
  * direct-mapped table would let two common words evict each other. Tokens
  * holding '`' (whose term is not a piece of the key) are never entered.
- * Cost of a hit: two masked 8-byte loads, a SWAR lowercase, one line.
+ * Cost of a hit: one masked 16-byte load, an ASCII test and a lowercase of
+ * all 16 bytes at once (SSE2, or two 64-bit words elsewhere), one multiply
+ * for the set, one 64-byte line.
  *
  * The general cache takes every other token of up to CACHE_RAW bytes (and
  * all of them with stemming): direct-mapped, one 64-byte entry per line,
@@ -81,6 +90,14 @@ typedef struct cache_entry {
 
 _Static_assert(sizeof(cache_entry) == 64, "one cache entry per 64-byte line");
 
+/* What a token resolves to (see resolve_general). */
+typedef struct resolved {
+    const char *term;
+    size_t len;
+    uint64_t hash;
+    unsigned flags;
+} resolved;
+
 typedef struct window_slot {
     tt_buf term;
     int edge_ok; /* may start or end an n-gram (not a stop-word, not short) */
@@ -100,6 +117,7 @@ struct tt_counter {
     void *cache_mem;    /* the allocation cache points into */
     ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
     void *ascii_mem;
+    resolved general;   /* the last answer of resolve_general */
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -235,13 +253,12 @@ static unsigned classify(const tt_counter *c, const char *t, size_t n, uint64_t 
     return 0;
 }
 
-/* What a token becomes, through the general cache and the slow path:
- * its final term (a view into the cache or into a counter buffer, valid
- * until the next token), the term's table hash, and CACHE_* flags.
+/* What a token becomes, through the general cache and the slow path, in
+ * *out: its final term (a view into the cache or into a counter buffer,
+ * valid until the next token), the term's table hash, and CACHE_* flags.
  * TT_ELIMIT when normalization outgrows its buffer. */
 static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
-                                 tt_token_kind kind, const char **term, size_t *tlen,
-                                 uint64_t *hash, unsigned *flags)
+                                 tt_token_kind kind, resolved *out)
 {
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
@@ -250,10 +267,10 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
         e = &c->cache[tti_token_slot(key, len, CACHE_BITS)];
         if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
             e->raw[2] == key[2]) {
-            *term = e->term;
-            *tlen = e->term_len;
-            *hash = e->hash;
-            *flags = e->flags;
+            out->term = e->term;
+            out->len = e->term_len;
+            out->hash = e->hash;
+            out->flags = e->flags;
             return TT_OK;
         }
     }
@@ -281,17 +298,22 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
         if (n)
             memcpy(e->term, t, n);
     }
-    *term = t;
-    *tlen = n;
-    *hash = h;
-    *flags = f;
+    out->term = t;
+    out->len = n;
+    out->hash = h;
+    out->flags = f;
     return TT_OK;
 }
 
 #define HIGH_BITS 0x8080808080808080ULL
 
+/* SSE2 (every x86-64) does the ASCII test and the lowercasing on all 16
+ * bytes at once; elsewhere the same is done on two 64-bit words. Both give
+ * the same key. */
+#define ASCII_SSE2 TT_COUNT_SSE2
+
 /* For len bytes (0..16): which bytes of the two key words to keep. */
-static const uint64_t key_mask[ASCII_RAW + 1][2] = {
+static _Alignas(16) const uint64_t key_mask[ASCII_RAW + 1][2] = {
     { 0x0000000000000000ULL, 0x0000000000000000ULL },
     { 0x00000000000000ffULL, 0x0000000000000000ULL },
     { 0x000000000000ffffULL, 0x0000000000000000ULL },
@@ -312,12 +334,12 @@ static const uint64_t key_mask[ASCII_RAW + 1][2] = {
 };
 
 /* The first len (1..ASCII_RAW) bytes of raw as two zero-padded words, the
- * bytes in memory order (the term is read back out of them). When 16 bytes
- * can be read (end is the end of the text), two loads and two masks. */
-static inline void ascii_key(const char *raw, size_t len, const char *end, uint64_t k[2])
+ * bytes in memory order (the term is read back out of them); room is how
+ * many bytes can be read from raw on. */
+static inline void ascii_key(const char *raw, size_t len, size_t room, uint64_t k[2])
 {
 #if defined(__BYTE_ORDER__) && __BYTE_ORDER__ == __ORDER_LITTLE_ENDIAN__
-    if ((size_t)(end - raw) >= ASCII_RAW) {
+    if (room >= ASCII_RAW) {
         memcpy(&k[0], raw, 8);
         memcpy(&k[1], raw + 8, 8);
         k[0] &= key_mask[len][0];
@@ -327,13 +349,14 @@ static inline void ascii_key(const char *raw, size_t len, const char *end, uint6
     k[0] = tti_load_upto8(raw, len);
     k[1] = len > 8 ? tti_load_upto8(raw + 8, len - 8) : 0;
 #else
-    (void)end;
+    (void)room;
     unsigned char b[ASCII_RAW] = { 0 };
     memcpy(b, raw, len);
     memcpy(k, b, sizeof b);
 #endif
 }
 
+#if !ASCII_SSE2
 /* ASCII lowercase of eight bytes at once (each byte < 0x80, so no sum
  * carries into the next byte): bit 7 of c + 0x3f is set when c >= 'A', of
  * c + 0x25 when c > 'Z'; an upper-case byte gains 0x20. */
@@ -342,29 +365,66 @@ static inline uint64_t ascii_lower8(uint64_t x)
     uint64_t upper = (x + 0x3f3f3f3f3f3f3f3fULL) & ~(x + 0x2525252525252525ULL) & HIGH_BITS;
     return x | (upper >> 2);
 }
+#endif
 
+/* The lowercased key of an ASCII token (len 1..ASCII_RAW, room bytes
+ * readable from raw on); 0 when the token is not ASCII. */
+static inline int ascii_lower_key(const char *raw, size_t len, size_t room, uint64_t k[2])
+{
+#if ASCII_SSE2
+    __m128i v;
+    if (room >= ASCII_RAW) {
+        v = _mm_loadu_si128((const __m128i *)(const void *)raw);
+        v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
+    } else {
+        uint64_t t[2];
+        ascii_key(raw, len, room, t);
+        v = _mm_set_epi64x((long long)t[1], (long long)t[0]);
+    }
+    if (_mm_movemask_epi8(v))
+        return 0;
+    __m128i upper = _mm_and_si128(_mm_cmpgt_epi8(v, _mm_set1_epi8('A' - 1)),
+                                  _mm_cmplt_epi8(v, _mm_set1_epi8('Z' + 1)));
+    v = _mm_or_si128(v, _mm_and_si128(upper, _mm_set1_epi8(0x20)));
+    k[0] = (uint64_t)_mm_cvtsi128_si64(v);
+    k[1] = (uint64_t)_mm_cvtsi128_si64(_mm_unpackhi_epi64(v, v));
+    return 1;
+#else
+    ascii_key(raw, len, room, k);
+    if ((k[0] | k[1]) & HIGH_BITS)
+        return 0;
+    k[0] = ascii_lower8(k[0]);
+    k[1] = ascii_lower8(k[1]);
+    return 1;
+#endif
+}
+
+/* The set of a key: one multiply-shift of the two words folded together
+ * (the second rotated, so that equal halves do not cancel); the top bits of
+ * a product by an odd constant depend on every bit of the other factor. */
 static inline size_t ascii_slot(const uint64_t k[2], size_t len)
 {
-    uint64_t mix = (k[0] * 0x9E3779B97F4A7C15ULL) ^ (k[1] * 0xC2B2AE3D27D4EB4FULL) ^ len;
-    return (size_t)((mix ^ (mix >> 29)) >> (64 - ASCII_BITS));
+    uint64_t folded = k[0] ^ ((k[1] << 29) | (k[1] >> 35)) ^ len;
+    return (size_t)((folded * 0x9E3779B97F4A7C15ULL) >> (64 - ASCII_BITS));
 }
 
 static inline int ascii_way_holds(const ascii_way *w, const uint64_t k[2], size_t len)
 {
-    return w->raw_len == len && w->key[0] == k[0] && w->key[1] == k[1];
+    return ((w->key[0] ^ k[0]) | (w->key[1] ^ k[1]) | (w->raw_len ^ len)) == 0;
 }
 
 /* A miss in the ASCII cache: what tt_normalize does for an ASCII token
  * (fold, then tti_term_bounds) done on the lowercased key, entered as way 0
- * of set (way 0 moving to way 1). Returns 0, entering nothing, when the
+ * of set (way 0 moving to way 1). Returns NULL, entering nothing, when the
  * token holds '`' (tt_normalize makes it '\'', so the term would not be a
  * piece of the key). */
-static int ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2], size_t len)
+static const ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
+                                   size_t len)
 {
     unsigned char low[ASCII_RAW];
     memcpy(low, k, sizeof low);
     if (memchr(low, '`', len))
-        return 0;
+        return NULL;
     size_t a, b;
     tti_term_bounds(low, len, &a, &b);
     uint64_t h;
@@ -378,42 +438,29 @@ static int ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2], size_t
     w->term_off = (uint8_t)a;
     w->term_len = (uint8_t)(b - a);
     w->flags = (uint8_t)f;
-    return 1;
+    return w;
 }
 
-/* What a token (raw, len bytes; end: the end of its text) becomes: its
- * final term (a view into a cache or into a counter buffer, valid until the
- * next token), the term's table hash, and CACHE_* flags. TT_ELIMIT when
- * normalization outgrows its buffer. */
-static inline tt_status resolve(tt_counter *c, const char *raw, size_t len, const char *end,
-                                tt_token_kind kind, const char **term, size_t *tlen,
-                                uint64_t *hash, unsigned *flags)
+/* The ASCII cache's way for a token of len 1..ASCII_RAW bytes (room bytes
+ * readable from raw on), filled on a miss; NULL when the token is not for
+ * this cache (not ASCII, or holding '`'). */
+static inline const ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const char *raw,
+                                            size_t len, size_t room)
 {
-    if (c->ascii && len - 1 < ASCII_RAW) {
-        uint64_t k[2];
-        ascii_key(raw, len, end, k);
-        if (((k[0] | k[1]) & HIGH_BITS) == 0) {
-            k[0] = ascii_lower8(k[0]);
-            k[1] = ascii_lower8(k[1]);
-            ascii_set *set = &c->ascii[ascii_slot(k, len)];
-            ascii_way *w = &set->way[0];
-            if (!ascii_way_holds(w, k, len)) {
-                if (ascii_way_holds(&set->way[1], k, len)) {
-                    ascii_way tmp = set->way[1];
-                    set->way[1] = *w;
-                    *w = tmp;
-                } else if (!ascii_fill(c, set, k, len)) {
-                    return resolve_general(c, raw, len, kind, term, tlen, hash, flags);
-                }
-            }
-            *term = (const char *)w->key + w->term_off;
-            *tlen = w->term_len;
-            *hash = w->hash;
-            *flags = w->flags;
-            return TT_OK;
-        }
+    uint64_t k[2];
+    if (!ascii_lower_key(raw, len, room, k))
+        return NULL;
+    ascii_set *set = &cache[ascii_slot(k, len)];
+    ascii_way *w = &set->way[0];
+    if (ascii_way_holds(w, k, len))
+        return w;
+    if (ascii_way_holds(&set->way[1], k, len)) {
+        ascii_way tmp = set->way[1];
+        set->way[1] = *w;
+        *w = tmp;
+        return w;
     }
-    return resolve_general(c, raw, len, kind, term, tlen, hash, flags);
+    return ascii_fill(c, set, k, len);
 }
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
@@ -423,6 +470,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
     tt_token tok;
     tt_status s;
     const int unigram_only = c->opt.ngram_max == 1;
+    const int keep_numbers = c->opt.keep_numbers;
+    ascii_set *const ascii = c->ascii;
 
     tt_tokenizer_init(&tk, text, len);
     c->win_len = 0;
@@ -436,40 +485,57 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         }
         if (tok.kind == TT_TOKEN_NUMBER) {
             st->numbers++;
-            if (!c->opt.keep_numbers) {
+            if (!keep_numbers) {
                 c->win_len = 0;
                 c->win_head = 0;
                 continue;
             }
         }
+        /* What the token becomes: its term (valid until the next token),
+         * the term's hash and CACHE_* flags. */
         const char *term;
         size_t tlen;
         uint64_t h;
         unsigned flags;
-        s = resolve(c, text + tok.off, tok.len, text + len, tok.kind, &term, &tlen, &h, &flags);
-        if (s == TT_ELIMIT) {
-            /* NFKC can expand a token many times over (one U+FDFA becomes
-             * 18 characters); a term past the buffer cap is skipped like an
-             * overlong token, never allowed to fail the document. */
-            st->overlong++;
-            c->win_len = 0;
-            c->win_head = 0;
-            continue;
+        const ascii_way *w = NULL;
+        if (ascii && tok.len - 1 < ASCII_RAW)
+            w = ascii_lookup(c, ascii, text + tok.off, tok.len, len - tok.off);
+        if (w) {
+            term = (const char *)w->key + w->term_off;
+            tlen = w->term_len;
+            h = w->hash;
+            flags = w->flags;
+        } else {
+            s = resolve_general(c, text + tok.off, tok.len, tok.kind, &c->general);
+            if (s == TT_ELIMIT) {
+                /* NFKC can expand a token many times over (one U+FDFA
+                 * becomes 18 characters); a term past the buffer cap is
+                 * skipped like an overlong token, never allowed to fail
+                 * the document. */
+                st->overlong++;
+                c->win_len = 0;
+                c->win_head = 0;
+                continue;
+            }
+            if (s)
+                return s;
+            term = c->general.term;
+            tlen = c->general.len;
+            h = c->general.hash;
+            flags = c->general.flags;
         }
-        if (s)
-            return s;
-        if (flags & CACHE_EMPTY)
-            continue;
         int edge_ok = 1;
-        if (flags & CACHE_STOP) {
-            st->stopwords++;
-            edge_ok = 0;
-        } else if (flags & CACHE_SHORT) {
-            st->short_words++;
+        if (flags) {
+            if (flags & CACHE_EMPTY)
+                continue;
+            if (flags & CACHE_STOP)
+                st->stopwords++;
+            else
+                st->short_words++; /* CACHE_SHORT */
+            if (unigram_only)
+                continue;
             edge_ok = 0;
         }
-        if (unigram_only && !edge_ok)
-            continue;
         if (unigram_only) {
             s = tti_termtable_add_hashed(table, term, tlen, h, 1);
             if (s)
