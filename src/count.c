@@ -54,7 +54,7 @@
  * The general cache takes every other token of up to CACHE_RAW bytes (and
  * all of them with stemming): direct-mapped, one 64-byte entry per line,
  * keyed by the raw bytes, the term stored beside them. */
-#define ASCII_BITS 12 /* 4096 sets of two ways: 256 KB */
+#define ASCII_BITS 13 /* 8192 sets of two ways: 512 KB */
 #define ASCII_RAW 16
 #define CACHE_BITS 12 /* 4096 entries: 256 KB */
 #define CACHE_RAW 24
