@@ -16,7 +16,9 @@
  * A probe compares the stored 64-bit hash first and reads the term's bytes
  * only when it agrees; the probe loop makes no calls, and inserting a new
  * term is a separate function, so counting a term already in the table
- * (most of the work) runs a short path.
+ * (most of the work) runs a short path. That path (tti_termtable_find,
+ * tti_termtable_add_hashed) and the layout it needs are in
+ * termtable_internal.h, so the counting loop inlines it.
  *
  * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
  * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
@@ -26,26 +28,14 @@
 #include "tt_internal.h"
 #include "termtable_internal.h"
 
-typedef struct slot {
-    uint64_t hash;
-    const char *term;
-    size_t len;
-    uint64_t count;
-} slot;
+/* The slot and table layout are in termtable_internal.h. */
+typedef tti_slot slot;
 
-typedef struct chunk {
-    struct chunk *next;
+typedef struct tti_chunk {
+    struct tti_chunk *next;
     size_t used, size;
     char data[];
 } chunk;
-
-struct tt_termtable {
-    slot *slots;
-    size_t cap;       /* power of two */
-    size_t distinct;
-    uint64_t total;
-    chunk *arena;     /* newest first */
-};
 
 #define ARENA_CHUNK ((size_t)256 * 1024)
 #define INITIAL_CAP 1024
@@ -189,56 +179,6 @@ static tt_status grow(tt_termtable *t)
     return TT_OK;
 }
 
-/* Byte equality without a library call, so that find stays a leaf
- * function (a call in its loop would make every probe pay for saving and
- * restoring registers): overlapping fixed-size loads cover any length from
- * 4 to 16, longer terms go 8 bytes at a time with an overlapping last word.
- * Only called when the hashes already match, so it nearly always succeeds. */
-static inline int same_bytes(const char *a, const char *b, size_t n)
-{
-    uint64_t x, y, u, v;
-    if (n >= 8) {
-        for (size_t i = 0; i + 8 < n; i += 8) {
-            memcpy(&x, a + i, 8);
-            memcpy(&y, b + i, 8);
-            if (x != y)
-                return 0;
-        }
-        memcpy(&u, a + n - 8, 8);
-        memcpy(&v, b + n - 8, 8);
-        return u == v;
-    }
-    if (n >= 4) {
-        uint32_t x4, y4, u4, v4;
-        memcpy(&x4, a, 4);
-        memcpy(&y4, b, 4);
-        memcpy(&u4, a + n - 4, 4);
-        memcpy(&v4, b + n - 4, 4);
-        return ((x4 ^ y4) | (u4 ^ v4)) == 0;
-    }
-    for (size_t i = 0; i < n; i++)
-        if (a[i] != b[i])
-            return 0;
-    return 1;
-}
-
-/* The slot holding term, or the empty slot where it would go. The stored
- * hash is compared first: a probe reads the term's bytes only when all 64
- * bits agree. */
-static inline slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
-{
-    size_t mask = t->cap - 1;
-    size_t i = (size_t)h & mask;
-    for (;;) {
-        slot *s = &t->slots[i];
-        if (s->hash == h && s->len == len && s->term && same_bytes(s->term, term, len))
-            return s;
-        if (!s->term)
-            return s;
-        i = (i + 1) & mask;
-    }
-}
-
 uint64_t tti_termtable_hash(const char *term, size_t len)
 {
     return siphash13((const unsigned char *)term, len);
@@ -250,11 +190,10 @@ tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64
                                     count);
 }
 
-/* A term not in the table yet: s is the empty slot find gave for it. Kept
- * out of tti_termtable_add_hashed so that the path of a term already
+/* Kept out of tti_termtable_add_hashed so that the path of a term already
  * counted, by far the commoner, stays short. */
-static tt_status insert(tt_termtable *t, slot *s, const char *term, size_t len, uint64_t h,
-                        uint64_t count)
+tt_status tti_termtable_insert(tt_termtable *t, slot *s, const char *term, size_t len, uint64_t h,
+                               uint64_t count)
 {
     if (t->distinct >= TT_LIMIT_DISTINCT_TERMS)
         return TT_ELIMIT;
@@ -262,7 +201,7 @@ static tt_status insert(tt_termtable *t, slot *s, const char *term, size_t len, 
         tt_status st = grow(t);
         if (st)
             return st;
-        s = find(t, term, len, h);
+        s = tti_termtable_find(t, term, len, h);
     }
     const char *copy = arena_copy(t, term, len);
     if (!copy)
@@ -276,17 +215,6 @@ static tt_status insert(tt_termtable *t, slot *s, const char *term, size_t len, 
     return TT_OK;
 }
 
-tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len, uint64_t h,
-                                   uint64_t count)
-{
-    slot *s = find(t, term, len, h);
-    if (!s->term)
-        return insert(t, s, term, len, h, count);
-    s->count += count;
-    t->total += count;
-    return TT_OK;
-}
-
 uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
 {
     return tti_termtable_get_hashed(t, term, len, siphash13((const unsigned char *)term, len));
@@ -294,7 +222,7 @@ uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
 
 uint64_t tti_termtable_get_hashed(const tt_termtable *t, const char *term, size_t len, uint64_t h)
 {
-    const slot *s = find(t, term, len, h);
+    const slot *s = tti_termtable_find(t, term, len, h);
     return s->term ? s->count : 0;
 }
 
