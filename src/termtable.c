@@ -22,7 +22,6 @@
  *
  * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
  * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
-#include <stdlib.h>
 
 #include "termtide/termtable.h"
 #include "tt_internal.h"
@@ -253,30 +252,94 @@ static int bytes_cmp(const char *a, size_t alen, const char *b, size_t blen)
     return alen < blen ? -1 : alen > blen;
 }
 
-static int entry_cmp(const void *pa, const void *pb)
+/* Sorting: each entry carries its term's first 8 bytes as a big-endian
+ * number, zero-padded, so most comparisons of equal counts (the many terms
+ * seen once or twice) are one integer compare; where two prefixes differ
+ * they order as bytes_cmp would (a term that ends first is padded with 0,
+ * no greater than any byte the other has there), and where they agree
+ * bytes_cmp decides. The order is total (terms are distinct), so the result
+ * does not depend on the algorithm: a merge sort with the comparison
+ * inlined, O(n log n). */
+typedef struct sort_item {
+    uint64_t count;
+    uint64_t prefix;
+    const char *term;
+    size_t len;
+} sort_item;
+
+static uint64_t term_prefix(const char *term, size_t len)
 {
-    const tt_term_entry *a = pa, *b = pb;
+    const unsigned char *u = (const unsigned char *)term;
+    uint64_t p = 0;
+    for (size_t i = 0; i < 8; i++)
+        p = (p << 8) | (i < len ? u[i] : 0u);
+    return p;
+}
+
+/* Whether a sorts before b: count descending, then term bytewise. */
+static inline int item_before(const sort_item *a, const sort_item *b)
+{
     if (a->count != b->count)
-        return a->count > b->count ? -1 : 1;
-    return bytes_cmp(a->term, a->len, b->term, b->len);
+        return a->count > b->count;
+    if (a->prefix != b->prefix)
+        return a->prefix < b->prefix;
+    return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
+}
+
+/* Sorts a[0, n) using tmp (room for n / 2 + 1 items). */
+static void sort_items(sort_item *a, sort_item *tmp, size_t n)
+{
+    if (n <= 16) {
+        for (size_t i = 1; i < n; i++) {
+            sort_item x = a[i];
+            size_t j = i;
+            for (; j > 0 && item_before(&x, &a[j - 1]); j--)
+                a[j] = a[j - 1];
+            a[j] = x;
+        }
+        return;
+    }
+    size_t h = n / 2;
+    sort_items(a, tmp, h);
+    sort_items(a + h, tmp, n - h);
+    if (!item_before(&a[h], &a[h - 1]))
+        return; /* already in order */
+    memcpy(tmp, a, h * sizeof *a);
+    size_t i = 0, j = h, k = 0;
+    while (i < h && j < n)
+        a[k++] = item_before(&a[j], &tmp[i]) ? a[j++] : tmp[i++];
+    while (i < h)
+        a[k++] = tmp[i++];
 }
 
 tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n)
 {
-    tt_term_entry *e = tt_reallocarray(NULL, t->distinct ? t->distinct : 1, sizeof *e);
-    if (!e)
+    size_t total = t->distinct ? t->distinct : 1;
+    tt_term_entry *e = tt_reallocarray(NULL, total, sizeof *e);
+    sort_item *items = tt_reallocarray(NULL, total + total / 2 + 1, sizeof *items);
+    if (!e || !items) {
+        tt_free(e);
+        tt_free(items);
         return TT_ENOMEM;
+    }
     size_t k = 0;
     for (size_t i = 0; i < t->cap; i++) {
         const slot *s = &t->slots[i];
         if (!s->term)
             continue;
-        e[k].term = s->term;
-        e[k].len = s->len;
-        e[k].count = s->count;
+        items[k].count = s->count;
+        items[k].prefix = term_prefix(s->term, s->len);
+        items[k].term = s->term;
+        items[k].len = s->len;
         k++;
     }
-    qsort(e, k, sizeof *e, entry_cmp);
+    sort_items(items, items + total, k);
+    for (size_t i = 0; i < k; i++) {
+        e[i].term = items[i].term;
+        e[i].len = items[i].len;
+        e[i].count = items[i].count;
+    }
+    tt_free(items);
     *out = e;
     *n = k;
     return TT_OK;
