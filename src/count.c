@@ -3,36 +3,85 @@
  * For each block: tokens from the segmenter (views into the block text) →
  * normalized term in a reused buffer → stop-word and length checks → stem
  * (optional) → n-gram assembly → term table. No allocation per token: the
- * buffers grow to the longest term seen and are reused.
+ * buffers grow to the longest term seen and are reused. Most tokens skip
+ * the stages up to the table: a token cache (below) remembers what each
+ * recent token became. On the benchmark's filing-like text about 3% of
+ * tokens miss it, and the loop costs some 85 instructions a token besides
+ * the tokenizer and the table (callgrind).
  *
  * N-grams: a window of the last ngram_max kept tokens of the current
  * sentence (each with its final term form and whether it may start or end an
  * n-gram). At a sentence or block start the window empties; a left-out
  * number empties it too, since "revenue of 1,200 units" holds no n-gram
  * across the figure. Complexity O(tokens × ngram_max). */
+#if defined(__x86_64__) && defined(__SSE2__)
+#include <emmintrin.h>
+#define TT_COUNT_SSE2 1
+#else
+#define TT_COUNT_SSE2 0
+#endif
+
 #include "termtide/count.h"
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
 #include "termtide/segment.h"
-#include "tt_internal.h"
+#include "normalize_internal.h"
 #include "termtable_internal.h"
+#include "tt_internal.h"
 
 #define MAX_N 3
 
-/* The token cache: a direct-mapped table from a token's raw bytes (up to
- * CACHE_RAW of them) to what the slow path makes of it: the final term
- * (normalized, stemmed if asked), its table hash, and whether it is a
- * stop-word or too short. Normalization is a pure function of the raw
- * bytes, so an entry never goes stale; word frequencies follow Zipf's law,
- * so a few thousand entries catch most tokens and skip NFKC, case folding,
- * the stop-word lookup and SipHash for them. The cache index is an unkeyed
- * multiply-shift hash: crafted collisions only cause misses (the slow path),
- * never wrong terms, because the whole raw key is compared. */
-#define CACHE_BITS 12
+/* Token caches: from a token's raw bytes to what the slow path makes of
+ * it: the final term (normalized, stemmed if asked), its table hash, and
+ * whether it is a stop-word or too short. Normalization is a pure function
+ * of the raw bytes, so an entry never goes stale; word frequencies follow
+ * Zipf's law, so a few thousand entries catch most tokens and skip NFKC,
+ * case folding, the stop-word lookup and SipHash for them. Slots are picked
+ * by an unkeyed multiply-shift hash: crafted collisions only cause misses
+ * (the slow path), never wrong terms, because the whole key is compared.
+ *
+ * The ASCII cache takes ASCII tokens of up to ASCII_RAW bytes, the bulk of
+ * filing text (not with stemming, whose terms are no piece of the token). For ASCII, tt_normalize folds
+ * byte by byte (lowercase, '`' → '\'') and then cuts the term out of the
+ * folded token (tti_term_bounds), so a token and its lowercased form give
+ * the same term: the key is the lowercased token ("The" and "the" share an
+ * entry), and since the term is a piece of the key, an entry holds only
+ * where the term starts and its length. That makes an entry 32 bytes, so a
+ * 64-byte line holds a set of two ways (way 0 the more recently used; a hit
+ * in way 1 swaps them), which keeps Zipf's head resident where a
+ * direct-mapped table would let two common words evict each other. Tokens
+ * holding '`' (whose term is not a piece of the key) are never entered.
+ * Cost of a hit: one masked 16-byte load, an ASCII test and a lowercase of
+ * all 16 bytes at once (SSE2, or two 64-bit words elsewhere), one multiply
+ * for the set, one 64-byte line.
+ *
+ * The general cache takes every other token of up to CACHE_RAW bytes (and
+ * all of them with stemming): direct-mapped, one 64-byte entry per line,
+ * keyed by the raw bytes, the term stored beside them. */
+#define ASCII_BITS 13 /* 8192 sets of two ways: 512 KB */
+#define ASCII_RAW 16
+#define CACHE_BITS 12 /* 4096 entries: 256 KB */
 #define CACHE_RAW 24
 #define CACHE_STOP 1u
 #define CACHE_SHORT 2u
 #define CACHE_EMPTY 4u
+
+typedef struct ascii_way {
+    uint64_t key[2];  /* the token, ASCII-lowercased, zero-padded */
+    uint64_t hash;    /* tti_termtable_hash(term) */
+    uint8_t raw_len;  /* 0: unused way */
+    uint8_t term_off; /* the term is key bytes [term_off, term_off + term_len) */
+    uint8_t term_len;
+    uint8_t flags;
+    uint32_t unused;
+} ascii_way;
+
+typedef struct ascii_set {
+    ascii_way way[2]; /* way[0] the more recently used */
+} ascii_set;
+
+_Static_assert(sizeof(ascii_set) == 64, "one set of the ASCII cache per 64-byte line");
+_Static_assert(ASCII_RAW == sizeof(((ascii_way *)0)->key), "an ASCII key is two words");
 
 typedef struct cache_entry {
     uint64_t raw[CACHE_RAW / 8]; /* the raw token, zero-padded */
@@ -44,6 +93,14 @@ typedef struct cache_entry {
 } cache_entry;
 
 _Static_assert(sizeof(cache_entry) == 64, "one cache entry per 64-byte line");
+
+/* What a token resolves to (see resolve_general). */
+typedef struct resolved {
+    const char *term;
+    size_t len;
+    uint64_t hash;
+    unsigned flags;
+} resolved;
 
 typedef struct window_slot {
     tt_buf term;
@@ -62,6 +119,9 @@ struct tt_counter {
     size_t win_head; /* index of the oldest */
     cache_entry *cache; /* 1 << CACHE_BITS entries, 64-byte aligned */
     void *cache_mem;    /* the allocation cache points into */
+    ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
+    void *ascii_mem;
+    resolved general;   /* the last answer of resolve_general */
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -95,6 +155,14 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
         return NULL;
     }
     c->cache = (cache_entry *)(((uintptr_t)c->cache_mem + 63) & ~(uintptr_t)63);
+    if (!opt->stem) {
+        c->ascii_mem = tt_calloc(((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii);
+        if (!c->ascii_mem) {
+            tt_counter_free(c);
+            return NULL;
+        }
+        c->ascii = (ascii_set *)(((uintptr_t)c->ascii_mem + 63) & ~(uintptr_t)63);
+    }
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
         if (!c->stemmer) {
@@ -117,6 +185,7 @@ void tt_counter_free(tt_counter *c)
     for (int i = 0; i < MAX_N; i++)
         tt_buf_release(&c->win[i].term);
     tt_free(c->cache_mem);
+    tt_free(c->ascii_mem);
     tt_free(c);
 }
 
@@ -172,11 +241,28 @@ static tt_status push_window(tt_counter *c, const char *term, size_t len, int ed
     return tt_buf_append(&c->win[slot].term, term, len);
 }
 
-/* What a token becomes: its final term (a view into the cache or into a
- * counter buffer, valid until the next token), the term's table hash, and
- * CACHE_* flags. TT_ELIMIT when normalization outgrows its buffer. */
-static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_kind kind,
-                         const char **term, size_t *tlen, uint64_t *hash, unsigned *flags)
+/* The flags of a term (a view of n bytes), and its table hash. */
+static unsigned classify(const tt_counter *c, const char *t, size_t n, uint64_t *hash)
+{
+    if (n == 0) {
+        *hash = 0;
+        return CACHE_EMPTY;
+    }
+    uint64_t h = tti_termtable_hash(t, n);
+    *hash = h;
+    if (c->opt.stopwords && tti_termtable_get_hashed(c->opt.stopwords, t, n, h))
+        return CACHE_STOP;
+    if (c->opt.min_length > 1 && tt_utf8_length(t, n) < c->opt.min_length)
+        return CACHE_SHORT;
+    return 0;
+}
+
+/* What a token becomes, through the general cache and the slow path, in
+ * *out: its final term (a view into the cache or into a counter buffer,
+ * valid until the next token), the term's table hash, and CACHE_* flags.
+ * TT_ELIMIT when normalization outgrows its buffer. */
+static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
+                                 tt_token_kind kind, resolved *out)
 {
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
@@ -185,36 +271,27 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
         e = &c->cache[tti_token_slot(key, len, CACHE_BITS)];
         if (e->raw_len == len && e->raw[0] == key[0] && e->raw[1] == key[1] &&
             e->raw[2] == key[2]) {
-            *term = e->term;
-            *tlen = e->term_len;
-            *hash = e->hash;
-            *flags = e->flags;
+            out->term = e->term;
+            out->len = e->term_len;
+            out->hash = e->hash;
+            out->flags = e->flags;
             return TT_OK;
         }
     }
     tt_status s = tt_normalize(&c->norm, raw, len, &c->normal);
     if (s)
         return s;
-    unsigned f = 0;
     const char *t = c->normal.data;
     size_t n = c->normal.len;
-    uint64_t h = 0;
-    if (n == 0) {
-        f = CACHE_EMPTY;
-    } else {
+    uint64_t h;
+    unsigned f = classify(c, t, n, &h);
+    if (n && c->stemmer && kind == TT_TOKEN_WORD) {
+        s = tt_stem(c->stemmer, t, n, &c->stemmed);
+        if (s)
+            return s;
+        t = c->stemmed.data;
+        n = c->stemmed.len;
         h = tti_termtable_hash(t, n);
-        if (c->opt.stopwords && tti_termtable_get_hashed(c->opt.stopwords, t, n, h))
-            f = CACHE_STOP;
-        else if (c->opt.min_length > 1 && tt_utf8_length(t, n) < c->opt.min_length)
-            f = CACHE_SHORT;
-        if (c->stemmer && kind == TT_TOKEN_WORD) {
-            s = tt_stem(c->stemmer, t, n, &c->stemmed);
-            if (s)
-                return s;
-            t = c->stemmed.data;
-            n = c->stemmed.len;
-            h = tti_termtable_hash(t, n);
-        }
     }
     if (e && n <= CACHE_RAW) {
         memcpy(e->raw, key, sizeof key);
@@ -225,11 +302,169 @@ static tt_status resolve(tt_counter *c, const char *raw, size_t len, tt_token_ki
         if (n)
             memcpy(e->term, t, n);
     }
-    *term = t;
-    *tlen = n;
-    *hash = h;
-    *flags = f;
+    out->term = t;
+    out->len = n;
+    out->hash = h;
+    out->flags = f;
     return TT_OK;
+}
+
+#define HIGH_BITS 0x8080808080808080ULL
+
+/* SSE2 (every x86-64) does the ASCII test and the lowercasing on all 16
+ * bytes at once; elsewhere the same is done on two 64-bit words. Both give
+ * the same key. */
+#define ASCII_SSE2 TT_COUNT_SSE2
+
+/* For len bytes (0..16): which bytes of the two key words to keep. */
+static _Alignas(16) const uint64_t key_mask[ASCII_RAW + 1][2] = {
+    { 0x0000000000000000ULL, 0x0000000000000000ULL },
+    { 0x00000000000000ffULL, 0x0000000000000000ULL },
+    { 0x000000000000ffffULL, 0x0000000000000000ULL },
+    { 0x0000000000ffffffULL, 0x0000000000000000ULL },
+    { 0x00000000ffffffffULL, 0x0000000000000000ULL },
+    { 0x000000ffffffffffULL, 0x0000000000000000ULL },
+    { 0x0000ffffffffffffULL, 0x0000000000000000ULL },
+    { 0x00ffffffffffffffULL, 0x0000000000000000ULL },
+    { 0xffffffffffffffffULL, 0x0000000000000000ULL },
+    { 0xffffffffffffffffULL, 0x00000000000000ffULL },
+    { 0xffffffffffffffffULL, 0x000000000000ffffULL },
+    { 0xffffffffffffffffULL, 0x0000000000ffffffULL },
+    { 0xffffffffffffffffULL, 0x00000000ffffffffULL },
+    { 0xffffffffffffffffULL, 0x000000ffffffffffULL },
+    { 0xffffffffffffffffULL, 0x0000ffffffffffffULL },
+    { 0xffffffffffffffffULL, 0x00ffffffffffffffULL },
+    { 0xffffffffffffffffULL, 0xffffffffffffffffULL },
+};
+
+/* The first len (1..ASCII_RAW) bytes of raw as two zero-padded words, the
+ * bytes in memory order (the term is read back out of them); room is how
+ * many bytes can be read from raw on. */
+static inline void ascii_key(const char *raw, size_t len, size_t room, uint64_t k[2])
+{
+#if defined(__BYTE_ORDER__) && __BYTE_ORDER__ == __ORDER_LITTLE_ENDIAN__
+    if (room >= ASCII_RAW) {
+        memcpy(&k[0], raw, 8);
+        memcpy(&k[1], raw + 8, 8);
+        k[0] &= key_mask[len][0];
+        k[1] &= key_mask[len][1];
+        return;
+    }
+    k[0] = tti_load_upto8(raw, len);
+    k[1] = len > 8 ? tti_load_upto8(raw + 8, len - 8) : 0;
+#else
+    (void)room;
+    unsigned char b[ASCII_RAW] = { 0 };
+    memcpy(b, raw, len);
+    memcpy(k, b, sizeof b);
+#endif
+}
+
+#if !ASCII_SSE2
+/* ASCII lowercase of eight bytes at once (each byte < 0x80, so no sum
+ * carries into the next byte): bit 7 of c + 0x3f is set when c >= 'A', of
+ * c + 0x25 when c > 'Z'; an upper-case byte gains 0x20. */
+static inline uint64_t ascii_lower8(uint64_t x)
+{
+    uint64_t upper = (x + 0x3f3f3f3f3f3f3f3fULL) & ~(x + 0x2525252525252525ULL) & HIGH_BITS;
+    return x | (upper >> 2);
+}
+#endif
+
+/* The lowercased key of an ASCII token (len 1..ASCII_RAW, room bytes
+ * readable from raw on); 0 when the token is not ASCII. */
+static inline int ascii_lower_key(const char *raw, size_t len, size_t room, uint64_t k[2])
+{
+#if ASCII_SSE2
+    __m128i v;
+    if (room >= ASCII_RAW) {
+        v = _mm_loadu_si128((const __m128i *)(const void *)raw);
+        v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
+    } else {
+        uint64_t t[2];
+        ascii_key(raw, len, room, t);
+        v = _mm_set_epi64x((long long)t[1], (long long)t[0]);
+    }
+    if (_mm_movemask_epi8(v))
+        return 0;
+    __m128i upper = _mm_and_si128(_mm_cmpgt_epi8(v, _mm_set1_epi8('A' - 1)),
+                                  _mm_cmplt_epi8(v, _mm_set1_epi8('Z' + 1)));
+    v = _mm_or_si128(v, _mm_and_si128(upper, _mm_set1_epi8(0x20)));
+    k[0] = (uint64_t)_mm_cvtsi128_si64(v);
+    k[1] = (uint64_t)_mm_cvtsi128_si64(_mm_unpackhi_epi64(v, v));
+    return 1;
+#else
+    ascii_key(raw, len, room, k);
+    if ((k[0] | k[1]) & HIGH_BITS)
+        return 0;
+    k[0] = ascii_lower8(k[0]);
+    k[1] = ascii_lower8(k[1]);
+    return 1;
+#endif
+}
+
+/* The set of a key: one multiply-shift of the two words folded together
+ * (the second rotated, so that equal halves do not cancel); the top bits of
+ * a product by an odd constant depend on every bit of the other factor. */
+static inline size_t ascii_slot(const uint64_t k[2], size_t len)
+{
+    uint64_t folded = k[0] ^ ((k[1] << 29) | (k[1] >> 35)) ^ len;
+    return (size_t)((folded * 0x9E3779B97F4A7C15ULL) >> (64 - ASCII_BITS));
+}
+
+static inline int ascii_way_holds(const ascii_way *w, const uint64_t k[2], size_t len)
+{
+    return ((w->key[0] ^ k[0]) | (w->key[1] ^ k[1]) | (w->raw_len ^ len)) == 0;
+}
+
+/* A miss in the ASCII cache: what tt_normalize does for an ASCII token
+ * (fold, then tti_term_bounds) done on the lowercased key, entered as way 0
+ * of set (way 0 moving to way 1). Returns NULL, entering nothing, when the
+ * token holds '`' (tt_normalize makes it '\'', so the term would not be a
+ * piece of the key). */
+static const ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
+                                   size_t len)
+{
+    unsigned char low[ASCII_RAW];
+    memcpy(low, k, sizeof low);
+    if (memchr(low, '`', len))
+        return NULL;
+    size_t a, b;
+    tti_term_bounds(low, len, &a, &b);
+    uint64_t h;
+    unsigned f = classify(c, (const char *)low + a, b - a, &h);
+    set->way[1] = set->way[0];
+    ascii_way *w = &set->way[0];
+    w->key[0] = k[0];
+    w->key[1] = k[1];
+    w->hash = h;
+    w->raw_len = (uint8_t)len;
+    w->term_off = (uint8_t)a;
+    w->term_len = (uint8_t)(b - a);
+    w->flags = (uint8_t)f;
+    return w;
+}
+
+/* The ASCII cache's way for a token of len 1..ASCII_RAW bytes (room bytes
+ * readable from raw on), filled on a miss; NULL when the token is not for
+ * this cache (not ASCII, or holding '`'). */
+static inline const ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const char *raw,
+                                            size_t len, size_t room)
+{
+    uint64_t k[2];
+    if (!ascii_lower_key(raw, len, room, k))
+        return NULL;
+    ascii_set *set = &cache[ascii_slot(k, len)];
+    ascii_way *w = &set->way[0];
+    if (ascii_way_holds(w, k, len))
+        return w;
+    if (ascii_way_holds(&set->way[1], k, len)) {
+        ascii_way tmp = set->way[1];
+        set->way[1] = *w;
+        *w = tmp;
+        return w;
+    }
+    return ascii_fill(c, set, k, len);
 }
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
@@ -239,6 +474,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
     tt_token tok;
     tt_status s;
     const int unigram_only = c->opt.ngram_max == 1;
+    const int keep_numbers = c->opt.keep_numbers;
+    ascii_set *const ascii = c->ascii;
 
     tt_tokenizer_init(&tk, text, len);
     c->win_len = 0;
@@ -252,40 +489,57 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         }
         if (tok.kind == TT_TOKEN_NUMBER) {
             st->numbers++;
-            if (!c->opt.keep_numbers) {
+            if (!keep_numbers) {
                 c->win_len = 0;
                 c->win_head = 0;
                 continue;
             }
         }
+        /* What the token becomes: its term (valid until the next token),
+         * the term's hash and CACHE_* flags. */
         const char *term;
         size_t tlen;
         uint64_t h;
         unsigned flags;
-        s = resolve(c, text + tok.off, tok.len, tok.kind, &term, &tlen, &h, &flags);
-        if (s == TT_ELIMIT) {
-            /* NFKC can expand a token many times over (one U+FDFA becomes
-             * 18 characters); a term past the buffer cap is skipped like an
-             * overlong token, never allowed to fail the document. */
-            st->overlong++;
-            c->win_len = 0;
-            c->win_head = 0;
-            continue;
+        const ascii_way *w = NULL;
+        if (ascii && tok.len - 1 < ASCII_RAW)
+            w = ascii_lookup(c, ascii, text + tok.off, tok.len, len - tok.off);
+        if (w) {
+            term = (const char *)w->key + w->term_off;
+            tlen = w->term_len;
+            h = w->hash;
+            flags = w->flags;
+        } else {
+            s = resolve_general(c, text + tok.off, tok.len, tok.kind, &c->general);
+            if (s == TT_ELIMIT) {
+                /* NFKC can expand a token many times over (one U+FDFA
+                 * becomes 18 characters); a term past the buffer cap is
+                 * skipped like an overlong token, never allowed to fail
+                 * the document. */
+                st->overlong++;
+                c->win_len = 0;
+                c->win_head = 0;
+                continue;
+            }
+            if (s)
+                return s;
+            term = c->general.term;
+            tlen = c->general.len;
+            h = c->general.hash;
+            flags = c->general.flags;
         }
-        if (s)
-            return s;
-        if (flags & CACHE_EMPTY)
-            continue;
         int edge_ok = 1;
-        if (flags & CACHE_STOP) {
-            st->stopwords++;
-            edge_ok = 0;
-        } else if (flags & CACHE_SHORT) {
-            st->short_words++;
+        if (flags) {
+            if (flags & CACHE_EMPTY)
+                continue;
+            if (flags & CACHE_STOP)
+                st->stopwords++;
+            else
+                st->short_words++; /* CACHE_SHORT */
+            if (unigram_only)
+                continue;
             edge_ok = 0;
         }
-        if (unigram_only && !edge_ok)
-            continue;
         if (unigram_only) {
             s = tti_termtable_add_hashed(table, term, tlen, h, 1);
             if (s)

@@ -36,6 +36,7 @@
 #include <utf8proc.h>
 
 #include "termtide/normalize.h"
+#include "normalize_internal.h"
 #include "tt_internal.h"
 
 /* ASCII lowercase, and U+0060 GRAVE ACCENT → U+0027 APOSTROPHE (typed as an
@@ -98,27 +99,6 @@ static utf8proc_int32_t map_punct_hook(utf8proc_int32_t cp, void *data)
 {
     (void)data;
     return map_punct(cp);
-}
-
-static int is_edge(unsigned char c) { return c == '\'' || c == '-'; }
-
-/* Finds the term inside s[0, len) (already folded): edges stripped, a final
- * possessive "'s" dropped. */
-static void term_bounds(const unsigned char *s, size_t len, size_t *start, size_t *end)
-{
-    size_t a = 0, b = len;
-    while (a < b && is_edge(s[a]))
-        a++;
-    while (b > a && is_edge(s[b - 1]))
-        b--;
-    /* "'s" needs something before it: a lone "s" left by "'s" is kept. */
-    if (b - a > 2 && s[b - 1] == 's' && s[b - 2] == '\'') {
-        b -= 2;
-        while (b > a && is_edge(s[b - 1]))
-            b--;
-    }
-    *start = a;
-    *end = b;
 }
 
 /* Length of the UTF-8 sequence at s if it is one of the apostrophe or dash
@@ -259,7 +239,7 @@ static tt_status normalize_unicode(tt_normalizer *n, const unsigned char *s, siz
 
     const unsigned char *u = (const unsigned char *)n->cps;
     size_t a, b;
-    term_bounds(u, (size_t)nbytes, &a, &b);
+    tti_term_bounds(u, (size_t)nbytes, &a, &b);
     return tt_buf_append(out, u + a, b - a);
 }
 
@@ -278,7 +258,7 @@ tt_status tt_normalize(tt_normalizer *n, const char *tok, size_t len, tt_buf *ou
         return normalize_unicode(n, s, len, out);
     }
     size_t a, b;
-    term_bounds(d, k, &a, &b);
+    tti_term_bounds(d, k, &a, &b);
     if (a)
         memmove(d, d + a, b - a);
     out->len = b - a;

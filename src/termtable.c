@@ -9,37 +9,32 @@
  *
  * Hash: SipHash-1-3 with a 128-bit key (Aumasson & Bernstein 2012, "SipHash:
  * a fast short-input PRF"), so crafted terms cannot force collisions without
- * the key. The key is process-wide; output never follows hash order, it is
- * sorted by count then term (tt_termtable_sorted).
+ * the key. The key is process-wide, so a hash stored in one table is valid
+ * in every other (merging reuses it instead of hashing again); output never
+ * follows hash order, it is sorted by count then term (tt_termtable_sorted).
+ *
+ * A probe compares the stored 64-bit hash first and reads the term's bytes
+ * only when it agrees; the probe loop makes no calls, and inserting a new
+ * term is a separate function, so counting a term already in the table
+ * (most of the work) runs a short path. That path (tti_termtable_find,
+ * tti_termtable_add_hashed) and the layout it needs are in
+ * termtable_internal.h, so the counting loop inlines it.
  *
  * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
  * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
-#include <stdlib.h>
 
 #include "termtide/termtable.h"
 #include "tt_internal.h"
 #include "termtable_internal.h"
 
-typedef struct slot {
-    uint64_t hash;
-    const char *term;
-    size_t len;
-    uint64_t count;
-} slot;
+/* The slot and table layout are in termtable_internal.h. */
+typedef tti_slot slot;
 
-typedef struct chunk {
-    struct chunk *next;
+typedef struct tti_chunk {
+    struct tti_chunk *next;
     size_t used, size;
     char data[];
 } chunk;
-
-struct tt_termtable {
-    slot *slots;
-    size_t cap;       /* power of two */
-    size_t distinct;
-    uint64_t total;
-    chunk *arena;     /* newest first */
-};
 
 #define ARENA_CHUNK ((size_t)256 * 1024)
 #define INITIAL_CAP 1024
@@ -183,49 +178,6 @@ static tt_status grow(tt_termtable *t)
     return TT_OK;
 }
 
-/* Byte equality for short terms without a library call: overlapping
- * fixed-size loads cover any length from 1 to 16; longer terms use memcmp.
- * Only called when the hashes already match, so it nearly always succeeds. */
-static inline int same_bytes(const char *a, const char *b, size_t n)
-{
-    uint64_t x, y, u, v;
-    if (n >= 8 && n <= 16) {
-        memcpy(&x, a, 8);
-        memcpy(&y, b, 8);
-        memcpy(&u, a + n - 8, 8);
-        memcpy(&v, b + n - 8, 8);
-        return ((x ^ y) | (u ^ v)) == 0;
-    }
-    if (n >= 4 && n < 8) {
-        uint32_t x4, y4, u4, v4;
-        memcpy(&x4, a, 4);
-        memcpy(&y4, b, 4);
-        memcpy(&u4, a + n - 4, 4);
-        memcpy(&v4, b + n - 4, 4);
-        return ((x4 ^ y4) | (u4 ^ v4)) == 0;
-    }
-    if (n < 4) {
-        for (size_t i = 0; i < n; i++)
-            if (a[i] != b[i])
-                return 0;
-        return 1;
-    }
-    return memcmp(a, b, n) == 0;
-}
-
-static slot *find(const tt_termtable *t, const char *term, size_t len, uint64_t h)
-{
-    size_t i = (size_t)h & (t->cap - 1);
-    for (;;) {
-        slot *s = &t->slots[i];
-        if (!s->term)
-            return s;
-        if (s->hash == h && s->len == len && same_bytes(s->term, term, len))
-            return s;
-        i = (i + 1) & (t->cap - 1);
-    }
-}
-
 uint64_t tti_termtable_hash(const char *term, size_t len)
 {
     return siphash13((const unsigned char *)term, len);
@@ -237,22 +189,18 @@ tt_status tt_termtable_add(tt_termtable *t, const char *term, size_t len, uint64
                                     count);
 }
 
-tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len, uint64_t h,
-                                   uint64_t count)
+/* Kept out of tti_termtable_add_hashed so that the path of a term already
+ * counted, by far the commoner, stays short. */
+tt_status tti_termtable_insert(tt_termtable *t, slot *s, const char *term, size_t len, uint64_t h,
+                               uint64_t count)
 {
-    slot *s = find(t, term, len, h);
-    if (s->term) {
-        s->count += count;
-        t->total += count;
-        return TT_OK;
-    }
     if (t->distinct >= TT_LIMIT_DISTINCT_TERMS)
         return TT_ELIMIT;
     if ((t->distinct + 1) * 10 > t->cap * 7) {
         tt_status st = grow(t);
         if (st)
             return st;
-        s = find(t, term, len, h);
+        s = tti_termtable_find(t, term, len, h);
     }
     const char *copy = arena_copy(t, term, len);
     if (!copy)
@@ -273,20 +221,22 @@ uint64_t tt_termtable_get(const tt_termtable *t, const char *term, size_t len)
 
 uint64_t tti_termtable_get_hashed(const tt_termtable *t, const char *term, size_t len, uint64_t h)
 {
-    const slot *s = find(t, term, len, h);
+    const slot *s = tti_termtable_find(t, term, len, h);
     return s->term ? s->count : 0;
 }
 
 size_t tt_termtable_distinct(const tt_termtable *t) { return t->distinct; }
 uint64_t tt_termtable_total(const tt_termtable *t) { return t->total; }
 
+/* Every table hashes with the one process-wide key, so the hash stored in
+ * src's slot is the one dst would compute. */
 tt_status tt_termtable_merge(tt_termtable *dst, const tt_termtable *src)
 {
     for (size_t i = 0; i < src->cap; i++) {
         const slot *s = &src->slots[i];
         if (!s->term)
             continue;
-        tt_status st = tt_termtable_add(dst, s->term, s->len, s->count);
+        tt_status st = tti_termtable_add_hashed(dst, s->term, s->len, s->hash, s->count);
         if (st)
             return st;
     }
@@ -302,30 +252,94 @@ static int bytes_cmp(const char *a, size_t alen, const char *b, size_t blen)
     return alen < blen ? -1 : alen > blen;
 }
 
-static int entry_cmp(const void *pa, const void *pb)
+/* Sorting: each entry carries its term's first 8 bytes as a big-endian
+ * number, zero-padded, so most comparisons of equal counts (the many terms
+ * seen once or twice) are one integer compare; where two prefixes differ
+ * they order as bytes_cmp would (a term that ends first is padded with 0,
+ * no greater than any byte the other has there), and where they agree
+ * bytes_cmp decides. The order is total (terms are distinct), so the result
+ * does not depend on the algorithm: a merge sort with the comparison
+ * inlined, O(n log n). */
+typedef struct sort_item {
+    uint64_t count;
+    uint64_t prefix;
+    const char *term;
+    size_t len;
+} sort_item;
+
+static uint64_t term_prefix(const char *term, size_t len)
 {
-    const tt_term_entry *a = pa, *b = pb;
+    const unsigned char *u = (const unsigned char *)term;
+    uint64_t p = 0;
+    for (size_t i = 0; i < 8; i++)
+        p = (p << 8) | (i < len ? u[i] : 0u);
+    return p;
+}
+
+/* Whether a sorts before b: count descending, then term bytewise. */
+static inline int item_before(const sort_item *a, const sort_item *b)
+{
     if (a->count != b->count)
-        return a->count > b->count ? -1 : 1;
-    return bytes_cmp(a->term, a->len, b->term, b->len);
+        return a->count > b->count;
+    if (a->prefix != b->prefix)
+        return a->prefix < b->prefix;
+    return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
+}
+
+/* Sorts a[0, n) using tmp (room for n / 2 + 1 items). */
+static void sort_items(sort_item *a, sort_item *tmp, size_t n)
+{
+    if (n <= 16) {
+        for (size_t i = 1; i < n; i++) {
+            sort_item x = a[i];
+            size_t j = i;
+            for (; j > 0 && item_before(&x, &a[j - 1]); j--)
+                a[j] = a[j - 1];
+            a[j] = x;
+        }
+        return;
+    }
+    size_t h = n / 2;
+    sort_items(a, tmp, h);
+    sort_items(a + h, tmp, n - h);
+    if (!item_before(&a[h], &a[h - 1]))
+        return; /* already in order */
+    memcpy(tmp, a, h * sizeof *a);
+    size_t i = 0, j = h, k = 0;
+    while (i < h && j < n)
+        a[k++] = item_before(&a[j], &tmp[i]) ? a[j++] : tmp[i++];
+    while (i < h)
+        a[k++] = tmp[i++];
 }
 
 tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n)
 {
-    tt_term_entry *e = tt_reallocarray(NULL, t->distinct ? t->distinct : 1, sizeof *e);
-    if (!e)
+    size_t total = t->distinct ? t->distinct : 1;
+    tt_term_entry *e = tt_reallocarray(NULL, total, sizeof *e);
+    sort_item *items = tt_reallocarray(NULL, total + total / 2 + 1, sizeof *items);
+    if (!e || !items) {
+        tt_free(e);
+        tt_free(items);
         return TT_ENOMEM;
+    }
     size_t k = 0;
     for (size_t i = 0; i < t->cap; i++) {
         const slot *s = &t->slots[i];
         if (!s->term)
             continue;
-        e[k].term = s->term;
-        e[k].len = s->len;
-        e[k].count = s->count;
+        items[k].count = s->count;
+        items[k].prefix = term_prefix(s->term, s->len);
+        items[k].term = s->term;
+        items[k].len = s->len;
         k++;
     }
-    qsort(e, k, sizeof *e, entry_cmp);
+    sort_items(items, items + total, k);
+    for (size_t i = 0; i < k; i++) {
+        e[i].term = items[i].term;
+        e[i].len = items[i].len;
+        e[i].count = items[i].count;
+    }
+    tt_free(items);
     *out = e;
     *n = k;
     return TT_OK;

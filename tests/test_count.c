@@ -1,12 +1,15 @@
 /* Tests of counting one document (src/count.c): unigrams, n-grams that
  * never cross a sentence or block and never start or end with a stop-word,
- * numbers left out or kept, minimum length, stemming, and count classes. */
+ * numbers left out or kept, minimum length, stemming, count classes, and
+ * the token caches giving exactly the terms of the slow path. */
 #include "tt_test.h"
 
 #include "termtide/alloc.h"
 #include "termtide/count.h"
 #include "termtide/extract.h"
 #include "termtide/filter.h"
+#include "termtide/normalize.h"
+#include "termtide/segment.h"
 
 static tt_termtable *stop_set(void)
 {
@@ -184,6 +187,172 @@ static void test_classes(void **state)
     assert_int_equal(c[4].occurrences, 20);
 }
 
+/* ---- the token caches against the slow path ---- */
+
+/* Appends one token shape: a word of len letters (a cycling alphabet, so
+ * words of one length but another start differ), in a case pattern, with an
+ * optional digit, underscore, hyphen, apostrophe or grave accent inside
+ * or at the end. */
+static void put_shape(tt_buf *b, size_t len, unsigned start, int casing, int extra)
+{
+    char w[320];
+    size_t n = 0;
+    for (size_t i = 0; i < len && n < sizeof w - 8; i++) {
+        char ch = (char)('a' + (start + i * 7) % 26);
+        if (casing == 1 || (casing == 2 && i % 2 == 1) || (casing == 3 && i == 0))
+            ch = (char)(ch - 32);
+        w[n++] = ch;
+        if (i + 1 < len && i == len / 2) {
+            switch (extra) {
+            case 1: w[n++] = '7'; break;
+            case 2: w[n++] = '_'; break;
+            case 3: w[n++] = '-'; break;
+            case 4: w[n++] = '\''; break;
+            case 5: w[n++] = '`'; break;
+            default: break;
+            }
+        }
+    }
+    if (extra == 6) {
+        w[n++] = '\'';
+        w[n++] = casing == 1 ? 'S' : 's';
+    } else if (extra == 7) {
+        w[n++] = '`';
+        w[n++] = 's';
+    } else if (extra == 8) {
+        w[n++] = '-';
+    }
+    assert_int_equal(tt_buf_append(b, w, n), TT_OK);
+}
+
+/* The slow path, written out: every token of text through tt_normalize
+ * (itself checked against Python's unicodedata in test_normalize.c), the
+ * stop-word set and the minimum length, added to ref. */
+static void slow_path(const char *text, size_t len, const tt_termtable *stop, size_t min_length,
+                      tt_termtable *ref, uint64_t *stopwords, uint64_t *short_words)
+{
+    tt_normalizer nz;
+    tt_buf term;
+    tt_normalizer_init(&nz);
+    tt_buf_init(&term, 0);
+    tt_tokenizer tk;
+    tt_token tok;
+    tt_tokenizer_init(&tk, text, len);
+    while (tt_tokenizer_next(&tk, &tok)) {
+        if (tok.kind == TT_TOKEN_NUMBER)
+            continue;
+        assert_int_equal(tt_normalize(&nz, text + tok.off, tok.len, &term), TT_OK);
+        if (term.len == 0)
+            continue;
+        if (tt_termtable_get(stop, term.data, term.len))
+            ++*stopwords;
+        else if (tt_utf8_length(term.data, term.len) < min_length)
+            ++*short_words;
+        else
+            assert_int_equal(tt_termtable_add(ref, term.data, term.len, 1), TT_OK);
+    }
+    tt_buf_release(&term);
+    tt_normalizer_release(&nz);
+}
+
+static void assert_same_table(const tt_termtable *got, const tt_termtable *want)
+{
+    tt_term_entry *g, *w;
+    size_t ng, nw;
+    assert_int_equal(tt_termtable_sorted(got, &g, &ng), TT_OK);
+    assert_int_equal(tt_termtable_sorted(want, &w, &nw), TT_OK);
+    assert_int_equal(ng, nw);
+    for (size_t i = 0; i < ng; i++) {
+        if (g[i].len != w[i].len || memcmp(g[i].term, w[i].term, g[i].len) != 0 ||
+            g[i].count != w[i].count)
+            fail_msg("entry %zu: counted \"%.*s\" %llu, slow path \"%.*s\" %llu", i,
+                     (int)g[i].len, g[i].term, (unsigned long long)g[i].count, (int)w[i].len,
+                     w[i].term, (unsigned long long)w[i].count);
+    }
+    tt_free(g);
+    tt_free(w);
+}
+
+/* Every ASCII token shape — lower, upper, mixed and capitalised case;
+ * digits, underscores, hyphens, apostrophes, graves inside; possessives and
+ * trailing hyphens; lengths 1 to 40 (around the ASCII cache's 16-byte key
+ * and the general cache's 24), and 300 (longer than a token may be) — plus
+ * stop-words in every case and a few non-ASCII words, each occurring many
+ * times so that the caches answer most of them: the counter's table and
+ * tallies must equal the slow path's. Twice: as one text, where most tokens
+ * have 16 readable bytes after them, and one token per text, where none has. */
+static void test_caches_match_slow_path(void **state)
+{
+    (void)state;
+    tt_termtable *stop = stop_set();
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    static const size_t lens[] = { 1,  2,  3,  4,  5,  7,  8,  9,  12, 14, 15, 16,
+                                   17, 18, 20, 22, 23, 24, 25, 26, 30, 40, 300 };
+    static const char *extras[] = { "The", "THE", "tHe", "of", "Of", "AND", "a", "A", "In",
+                                    "company\xe2\x80\x99s", "Company\xe2\x80\x99S",
+                                    "\xc3\xa9tude", "\xc3\x89TUDE", "year\xe2\x80\x93" "end" };
+    for (int round = 0; round < 3; round++) {
+        for (size_t li = 0; li < sizeof lens / sizeof lens[0]; li++)
+            for (unsigned start = 0; start < 3; start++)
+                for (int casing = 0; casing < 4; casing++)
+                    for (int extra = 0; extra < 9; extra++) {
+                        put_shape(&text, lens[li], start + (unsigned)round % 2, casing, extra);
+                        assert_int_equal(tt_buf_putc(&text, (extra + casing) % 5 ? ' ' : '\n'),
+                                         TT_OK);
+                    }
+        for (size_t i = 0; i < sizeof extras / sizeof extras[0]; i++) {
+            assert_int_equal(tt_buf_append(&text, extras[i], strlen(extras[i])), TT_OK);
+            assert_int_equal(tt_buf_append(&text, ". ", 2), TT_OK);
+        }
+    }
+
+    for (size_t min_length = 1; min_length <= 3; min_length += 2) {
+        tt_count_options o;
+        tt_count_options_init(&o);
+        o.stopwords = stop;
+        o.min_length = min_length;
+        tt_termtable *ref = tt_termtable_new();
+        uint64_t stopwords = 0, short_words = 0;
+        slow_path(text.data, text.len, stop, min_length, ref, &stopwords, &short_words);
+
+        tt_counter *c = tt_counter_new(&o);
+        assert_non_null(c);
+        tt_termtable *got = tt_termtable_new();
+        tt_doc_stats st;
+        memset(&st, 0, sizeof st);
+        assert_int_equal(tt_counter_count_text(c, text.data, text.len, got, &st), TT_OK);
+        assert_same_table(got, ref);
+        assert_int_equal(st.stopwords, stopwords);
+        assert_int_equal(st.short_words, short_words);
+        assert_int_equal(st.terms_kept, tt_termtable_total(ref));
+        tt_termtable_free(got);
+
+        /* One token per text, through the same counter (its caches warm):
+         * no token has bytes after it to read. */
+        got = tt_termtable_new();
+        memset(&st, 0, sizeof st);
+        tt_tokenizer tk;
+        tt_token tok;
+        tt_tokenizer_init(&tk, text.data, text.len);
+        while (tt_tokenizer_next(&tk, &tok)) {
+            char *one = tt_malloc(tok.len); /* exactly the token: ASan sees any overread */
+            assert_non_null(one);
+            memcpy(one, text.data + tok.off, tok.len);
+            assert_int_equal(tt_counter_count_text(c, one, tok.len, got, &st), TT_OK);
+            tt_free(one);
+        }
+        assert_same_table(got, ref);
+        assert_int_equal(st.stopwords, stopwords);
+        assert_int_equal(st.short_words, short_words);
+        tt_termtable_free(got);
+        tt_counter_free(c);
+        tt_termtable_free(ref);
+    }
+    tt_buf_release(&text);
+    tt_termtable_free(stop);
+}
+
 static void test_bad_options(void **state)
 {
     (void)state;
@@ -204,6 +373,7 @@ int main(void)
         cmocka_unit_test(test_blocks_are_boundaries),
         cmocka_unit_test(test_min_length_and_stem),
         cmocka_unit_test(test_classes),
+        cmocka_unit_test(test_caches_match_slow_path),
         cmocka_unit_test(test_bad_options),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);

@@ -47,6 +47,59 @@ static void test_ties_sorted_by_term(void **state)
     tt_termtable_free(t);
 }
 
+/* The reference order, written plainly for the C library's qsort: count
+ * descending, then memcmp over the common length, the shorter term first. */
+static int reference_cmp(const void *pa, const void *pb)
+{
+    const tt_term_entry *a = pa, *b = pb;
+    if (a->count != b->count)
+        return a->count > b->count ? -1 : 1;
+    int c = memcmp(a->term, b->term, a->len < b->len ? a->len : b->len);
+    if (c)
+        return c;
+    return a->len < b->len ? -1 : a->len > b->len;
+}
+
+/* tt_termtable_sorted against qsort with reference_cmp, on terms made to
+ * tie: counts from a few values, terms that share their first 8 bytes or
+ * are prefixes of each other, bytes 0x80-0xff (which must sort after ASCII,
+ * as memcmp compares unsigned), lengths 1 to 24. */
+static void test_sorted_against_qsort(void **state)
+{
+    (void)state;
+    tt_termtable *t = tt_termtable_new();
+    uint64_t x = 0x9e3779b97f4a7c15ull;
+    static const char alphabet[] = { 'a', 'b', 'z', 'A', '-', '\x80', '\xc3', '\xff' };
+    char w[24];
+    for (int i = 0; i < 20000; i++) {
+        x ^= x << 13;
+        x ^= x >> 7;
+        x ^= x << 17;
+        size_t len = 1 + (size_t)(x % 24);
+        uint64_t y = x;
+        /* the first bytes from few choices, so prefixes often agree */
+        w[0] = (y >> 50) & 1 ? 'a' : '\xc3';
+        for (size_t j = 1; j < len; j++)
+            w[j] = alphabet[(y >> (j * 2)) % (j < 6 ? 2 : 8)];
+        assert_int_equal(tt_termtable_add(t, w, len, 1 + (x >> 60) % 4), TT_OK);
+    }
+    tt_term_entry *e;
+    size_t n;
+    assert_int_equal(tt_termtable_sorted(t, &e, &n), TT_OK);
+    assert_int_equal(n, tt_termtable_distinct(t));
+    tt_term_entry *ref = malloc(n * sizeof *ref);
+    assert_non_null(ref);
+    memcpy(ref, e, n * sizeof *ref);
+    qsort(ref, n, sizeof *ref, reference_cmp);
+    for (size_t i = 0; i < n; i++) {
+        assert_ptr_equal(e[i].term, ref[i].term);
+        assert_int_equal(e[i].count, ref[i].count);
+    }
+    free(ref);
+    tt_free(e);
+    tt_termtable_free(t);
+}
+
 /* Many distinct terms force several growths; every count must survive. */
 static void test_growth_and_merge(void **state)
 {
@@ -135,6 +188,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_add_get_sorted),
         cmocka_unit_test(test_ties_sorted_by_term),
+        cmocka_unit_test(test_sorted_against_qsort),
         cmocka_unit_test(test_growth_and_merge),
         cmocka_unit_test(test_awkward_keys),
         cmocka_unit_test(test_out_of_memory),
