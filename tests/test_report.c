@@ -340,9 +340,10 @@ static void test_several_entities(void **state)
     rmdir(dir);
 }
 
-static int folder_count(const char *prefix)
+/* Folders named prefix... in dir. */
+static int folder_count(const char *dir, const char *prefix)
 {
-    DIR *d = opendir("/tmp");
+    DIR *d = opendir(dir);
     int n = 0;
     struct dirent *e;
     while (d && (e = readdir(d)))
@@ -372,7 +373,16 @@ static void test_hostile_documents_and_failures(void **state)
     f = fopen(rules, "w");
     fprintf(f, "onload\tonload\nscript\tscript\n");
     fclose(f);
-    int before = folder_count("termtide-report-");
+    /* The reports' temporary folders go to a private TMPDIR, so other runs
+     * of the tests at the same time cannot change the count. */
+    char tmpdir[300];
+    snprintf(tmpdir, sizeof tmpdir, "%s/tmp", dir);
+    assert_int_equal(mkdir(tmpdir, 0700), 0);
+    const char *old_tmpdir = getenv("TMPDIR");
+    char *saved = old_tmpdir ? strdup(old_tmpdir) : NULL;
+    setenv("TMPDIR", tmpdir, 1);
+    int before = folder_count(tmpdir, "termtide-report-");
+    assert_int_equal(before, 0);
     snprintf(args, sizeof args, "report --base %s --target %s --rules %s --min-count 1 -o %s", a, b,
              rules, out);
     int st;
@@ -393,7 +403,7 @@ static void test_hostile_documents_and_failures(void **state)
     free(page);
     unlink(out);
     /* the temporary folder is gone */
-    assert_int_equal(folder_count("termtide-report-"), before);
+    assert_int_equal(folder_count(tmpdir, "termtide-report-"), before);
 
     /* a series that cannot be formed: an error, no page, no folder left */
     snprintf(args, sizeof args, "report --manifest demo-corpus/manifest.tsv -o %s", out);
@@ -402,7 +412,7 @@ static void test_hostile_documents_and_failures(void **state)
     assert_non_null(strstr(msg, "cannot be in one series"));
     free(msg);
     assert_int_equal(access(out, F_OK), -1);
-    assert_int_equal(folder_count("termtide-report-"), before);
+    assert_int_equal(folder_count(tmpdir, "termtide-report-"), before);
     /* a watch-list that does not compile: the line is named, no page */
     f = fopen(rules, "w");
     fprintf(f, "broken\t(unclosed\n");
@@ -431,11 +441,17 @@ static void test_hostile_documents_and_failures(void **state)
     assert_int_equal(count_xpath(doc, "//h:p[contains(., 'missing.txt')]"), 1);
     xmlFreeDoc(doc);
     free(page);
-    assert_int_equal(folder_count("termtide-report-"), before);
+    assert_int_equal(folder_count(tmpdir, "termtide-report-"), before);
+    if (saved)
+        setenv("TMPDIR", saved, 1);
+    else
+        unsetenv("TMPDIR");
+    free(saved);
     unlink(out);
     unlink(a);
     unlink(b);
     unlink(rules);
+    rmdir(tmpdir);
     rmdir(dir);
 }
 
