@@ -2,14 +2,29 @@
  * blocks, hits mapped back to the source and given context, and the
  * threaded batch runner for search.
  *
- * Three ways to run a rule, chosen per rule by watchlist.c, all giving the
+ * Four ways to run a rule, chosen per rule by watchlist.c, all giving the
  * matches the rule gets over each block alone (the subject is the block's
  * text, so ^ and $ are its edges and nothing crosses into the next block):
- *  - whole text: a pattern that starts with a known character and holds no
- *    anchor, lookaround or verb runs once over the document's text, blocks
- *    and separators together (whole_text_pass): the JIT finds the first
- *    character with SIMD, and one call replaces one per block. A match over
- *    a separator is redone on its block alone.
+ *  - pair scan: patterns whose start watchlist.c can read (literal
+ *    characters, escaped punctuation, \s and \s+ runs, passing over \b),
+ *    when there are three or more, share one pass over each block's bytes
+ *    (pair_scan). A 64 KiB table says which two bytes can begin some rule's
+ *    match; where they can, bit-set tables for the first four bytes and for
+ *    the byte after a \s+ run among them leave the rules that may start
+ *    there, their further steps are checked byte by byte (pair_fits), and
+ *    only then is a rule tried anchored, if it is not inside its own
+ *    previous match. Every set holds at least the bytes the rule's match
+ *    can have there (a byte above ASCII only says "maybe": the check stops
+ *    there), so each rule is tried at every position where it matches, in
+ *    rising order, and gets exactly its own successive non-overlapping
+ *    matches, as in scan. With SSE2, when at most eight letters (either
+ *    case) and the class of white space and bytes above ASCII start the
+ *    rules, 16 positions at a time are first compared with them.
+ *  - whole text: another pattern that starts with a known character and
+ *    holds no anchor, lookaround or verb runs once over the document's
+ *    text, blocks and separators together (whole_text_pass): the JIT finds
+ *    the first character with SIMD, and one call replaces one per block. A
+ *    match over a separator is redone on its block alone.
  *  - scan: the other patterns share one pass. The prefilter alternation
  *    (watchlist.c) stops at each leftmost position where some rule matches,
  *    and there every such rule not inside its own previous match is tried
@@ -48,20 +63,28 @@
  * and _HEAP_KIB and a JIT stack of at most TT_LIMIT_REGEX_JIT_STACK; a rule
  * that reaches one is stopped for the rest of the document and recorded.
  *
- * Cost: per whole-text rule one pass at the JIT's first-character speed
- * (several GB/s for a phrase); one alternation pass for the scanned rules
- * plus, per position where one matches, an anchored attempt per rule; a
- * pass per block for the rest. The walks and tokenization are O(block) per
- * block with a hit. Measured on 97 MB of generated prose with 20 caseless
- * phrases: 0.9 s on one thread (extraction 0.25 s, SHA-256 0.08 s, PCRE2
- * 0.45 s), against 1.1 s for `grep -P -c` with the same phrases as one
- * alternation. */
+ * Cost: one pass over each block for all pair-scanned rules, a table
+ * lookup per byte (SSE2: about one instruction per byte when at most eight
+ * letters start the rules), and per position the table lets through a few more
+ * lookups; PCRE2 runs only where a rule's first steps fit, a handful of
+ * times per hit. Per whole-text rule one pass at the JIT's first-character
+ * speed (several GB/s for a phrase); one alternation pass for the scanned
+ * rules plus, per position where one matches, an anchored attempt per
+ * rule; a pass per block for the rest. The walks and tokenization are
+ * O(block) per block with a hit. Measured on 10 MB of generated prose made
+ * of common short words, with 20 caseless two-word phrases of those words
+ * (`search --counts`, callgrind, SHA-256 left out): 0.20 G instructions
+ * for the search itself instead of 0.67 G when each phrase ran over the
+ * whole text with the JIT. */
 #include <pthread.h>
 #include <stdlib.h>
 #include <strings.h>
 #include <sys/stat.h>
 
 #include <libxml/parser.h>
+#ifdef __SSE2__
+#include <emmintrin.h>
+#endif
 
 #include "termtide/segment.h"
 #include "search_internal.h"
@@ -119,6 +142,7 @@ struct tt_searcher {
     pcre2_jit_stack *jit_stack;
     unsigned char *stopped; /* per rule, for the current document */
     size_t *next_allowed;   /* per scanned rule: where its next match may start */
+    size_t *pair_next;      /* per pair rule: where its next match may start */
     int counts_only;
     span *hits, *a, *b;     /* one block's hits; near()'s A and B matches */
     size_t n_hits, cap_hits, n_a, cap_a, n_b, cap_b;
@@ -146,7 +170,8 @@ tt_searcher *tt_searcher_new(const tt_watchlist *wl)
     s->mctx = pcre2_match_context_create(g);
     s->stopped = tt_calloc(wl->n ? wl->n : 1, 1);
     s->next_allowed = tt_calloc(wl->n ? wl->n : 1, sizeof *s->next_allowed);
-    if (!s->md || !s->mctx || !s->stopped || !s->next_allowed)
+    s->pair_next = tt_calloc(wl->n_pair ? wl->n_pair : 1, sizeof *s->pair_next);
+    if (!s->md || !s->mctx || !s->stopped || !s->next_allowed || !s->pair_next)
         goto fail;
     pcre2_set_match_limit(s->mctx, TT_LIMIT_REGEX_MATCH);
     pcre2_set_depth_limit(s->mctx, TT_LIMIT_REGEX_DEPTH);
@@ -175,6 +200,7 @@ void tt_searcher_free(tt_searcher *s)
         pcre2_jit_stack_free(s->jit_stack);
     tt_free(s->stopped);
     tt_free(s->next_allowed);
+    tt_free(s->pair_next);
     tt_free(s->hits);
     tt_free(s->whole);
     tt_free(s->a);
@@ -481,6 +507,232 @@ static int scan_block(tt_searcher *s, size_t block, const char *t, size_t len,
         pos = next_char(t, len, at);
     }
     return found;
+}
+
+/* Whether a match of a pair rule may start at u[q]: each of the rule's
+ * steps (watchlist.c, start_steps) fits the bytes. A step's character is
+ * one byte when that byte is ASCII; at a byte above ASCII that may start
+ * one of the step's characters, the character may be longer, and the check
+ * ends there with a yes. A \s+ run goes over the ASCII white space that
+ * follows; the step after it cannot match white space, so the run must end
+ * there. */
+static int pair_fits(const unsigned char *sets, const tti_pair_rule *pr, const unsigned char *u,
+                     size_t len, size_t q, size_t from)
+{
+    for (size_t j = from; j < pr->n_steps; j++) {
+        const unsigned char *set = sets + pr->step[j].set * 256;
+        if (q >= len)
+            return 0;
+        unsigned v = set[u[q]];
+        if (v != 1)
+            return v;
+        q++;
+        if (pr->step[j].run) {
+            while (q < len && set[u[q]] == 1)
+                q++;
+            if (q < len && set[u[q]] == 2)
+                return 1;
+        }
+    }
+    return 1;
+}
+
+/* Tries, anchored at t[i], the pair rules of word w of the rule sets that
+ * are in m (the tables allowed them, having checked the first `seen`
+ * bytes), whose further steps fit and which are not inside their own
+ * previous match. Returns 1 on out of memory, else 0 (a rule that reaches a
+ * limit is stopped and recorded). */
+static int pair_rules(tt_searcher *s, size_t block, const char *t, size_t len, size_t i,
+                      size_t w, uint64_t m, size_t seen, tt_search_result *out)
+{
+    const tt_watchlist *wl = s->wl;
+    const unsigned char *u = (const unsigned char *)t;
+    while (m) {
+        size_t k = w * 64 + (size_t)__builtin_ctzll(m);
+        m &= m - 1;
+        const tti_pair_rule *pr = &wl->pair[k];
+        if (s->pair_next[k] > i || s->stopped[pr->rule])
+            continue;
+        /* the steps the tables checked are passed over; a byte above ASCII
+         * among them ends the check (see pair_fits) */
+        size_t from = pr->fixed < seen ? pr->fixed : seen;
+        if (!(from && u[i + from - 1] >= 0x80) &&
+            !pair_fits(wl->pair_sets, pr, u, len, i + from, from))
+            continue;
+        int rc = pcre2_match(wl->rules[pr->rule].anchored, (PCRE2_SPTR)t, len, i, 0, s->md,
+                             s->mctx);
+        if (rc == PCRE2_ERROR_NOMATCH)
+            continue;
+        if (rc < 0) {
+            s->stopped[pr->rule] = 1;
+            if (add_stop(out, pr->rule, block, rc))
+                return 1;
+            continue;
+        }
+        PCRE2_SIZE *ov = pcre2_get_ovector_pointer(s->md);
+        if (ov[1] > ov[0]) {
+            if (push_span(&s->hits, &s->n_hits, &s->cap_hits, ov[0], ov[1], pr->rule))
+                return 1;
+            s->pair_next[k] = ov[1];
+        }
+    }
+    return 0;
+}
+
+/* The row of pair_after for a \s+ run at u[i + r] (an ASCII white-space
+ * byte): the rules it leaves, by the byte after the run; NULL when that
+ * byte is above ASCII (it may start a longer white-space character). */
+static const uint64_t *pair_after_row(const tt_watchlist *wl, const unsigned char *u, size_t len,
+                                      size_t i, size_t r)
+{
+    const unsigned char *space = wl->pair_sets + TTI_PAIR_SPACE * 256;
+    size_t e = i + r + 1;
+    while (e < len && space[u[e]] == 1)
+        e++;
+    if (e < len && u[e] >= 0x80)
+        return NULL;
+    return wl->pair_after + (r * 257 + (e == len ? 256 : u[e])) * wl->pair_words;
+}
+
+/* The pair rules that may start a match at t[i], by the tables: the bytes
+ * at offsets 0 to TTI_PAIR_FIXED - 1 (while the bytes before are ASCII
+ * and in the block) and the byte after a \s+ run at one of those offsets;
+ * then pair_rules. */
+static int pair_try(tt_searcher *s, size_t block, const char *t, size_t len, size_t i,
+                    tt_search_result *out)
+{
+    const tt_watchlist *wl = s->wl;
+    const unsigned char *u = (const unsigned char *)t;
+    size_t words = wl->pair_words;
+    const uint64_t *rows[2 * TTI_PAIR_FIXED];
+    size_t seen = 1; /* bytes the tables checked */
+    rows[0] = wl->pair_at + u[i] * words;
+    while (seen < TTI_PAIR_FIXED && i + seen < len && u[i + seen - 1] < 0x80) {
+        rows[seen] = wl->pair_at + (seen * 256 + u[i + seen]) * words;
+        seen++;
+    }
+    const unsigned char *space = wl->pair_sets + TTI_PAIR_SPACE * 256;
+    size_t n_rows = seen;
+    for (size_t r = 1; r < seen; r++)
+        if (space[u[i + r]] == 1 && (rows[n_rows] = pair_after_row(wl, u, len, i, r)))
+            n_rows++;
+    for (size_t w = 0; w < words; w++) {
+        uint64_t m = rows[0][w];
+        for (size_t j = 1; j < n_rows && m; j++)
+            m &= rows[j][w];
+        if (m && pair_rules(s, block, t, len, i, w, m, seen, out))
+            return 1;
+    }
+    return 0;
+}
+
+_Static_assert(TTI_PAIR_FIXED == 4, "pair_try4 checks four bytes");
+_Static_assert(TTI_PAIR_KEYS == 8, "pair_scan compares eight keys");
+
+/* pair_try for up to 64 pair rules (one word) where t[i .. i + 3] is in
+ * the block and t[i .. i + 2] is ASCII, the common case, unrolled: the
+ * tables check all four bytes (TTI_PAIR_FIXED is 4). */
+static int pair_try4(tt_searcher *s, size_t block, const char *t, size_t len, size_t i,
+                     tt_search_result *out)
+{
+    const tt_watchlist *wl = s->wl;
+    const unsigned char *u = (const unsigned char *)t;
+    const uint64_t *at = wl->pair_at;
+    uint64_t m = at[u[i]] & at[256 + u[i + 1]] & at[512 + u[i + 2]] & at[768 + u[i + 3]];
+    if (m & wl->pair_run_rules) {
+        const unsigned char *space = wl->pair_sets + TTI_PAIR_SPACE * 256;
+        for (size_t r = 1; r < 4 && m; r++) {
+            if (space[u[i + r]] != 1)
+                continue;
+            const uint64_t *row = pair_after_row(wl, u, len, i, r);
+            if (row)
+                m &= *row;
+        }
+    }
+    return m ? pair_rules(s, block, t, len, i, 0, m, 4, out) : 0;
+}
+
+/* Where the pair table allows u[p] u[p + 1] (p + 1 < len): the rules that
+ * may start there are tried (pair_try4 in the common case). Returns 1 on
+ * out of memory. */
+static int pair_at_byte(tt_searcher *s, size_t block, const char *t, size_t len, size_t p,
+                        int quick, tt_search_result *out)
+{
+    const unsigned char *u = (const unsigned char *)t;
+    if (quick && p + 4 <= len && (u[p] | u[p + 1] | u[p + 2]) < 0x80)
+        return pair_try4(s, block, t, len, p, out);
+    return pair_try(s, block, t, len, p, out);
+}
+
+static unsigned two_bytes(const unsigned char *u)
+{
+    uint16_t x;
+    memcpy(&x, u, 2);
+    return x;
+}
+
+/* The pair rules over one block (see the top of the file): one pass over
+ * the block's byte pairs, four at a time, the rules tried where one can
+ * start, in rising order of position. With SSE2 and few first bytes, 16
+ * positions at a time are first matched against them (as in the
+ * watch-list's pair_first). Returns 1 on out of memory, else 0. */
+static int pair_scan(tt_searcher *s, size_t block, const char *t, size_t len,
+                     tt_search_result *out)
+{
+    const tt_watchlist *wl = s->wl;
+    const unsigned char *u = (const unsigned char *)t;
+    const unsigned char *table = wl->pair_table;
+    if (!len)
+        return 0;
+    memset(s->pair_next, 0, wl->n_pair * sizeof *s->pair_next);
+    int quick = wl->pair_words == 1;
+    size_t i = 0;
+#ifdef __SSE2__
+    if (wl->pair_simd) {
+        const __m128i case_bit = _mm_set1_epi8(0x20);
+        /* signed: below 0x21 or above ASCII (negative); -128: nothing */
+        const __m128i low = _mm_set1_epi8(wl->pair_low ? 0x21 : -128);
+        const __m128i k0 = _mm_set1_epi8((char)wl->pair_first[0]);
+        const __m128i k1 = _mm_set1_epi8((char)wl->pair_first[1]);
+        const __m128i k2 = _mm_set1_epi8((char)wl->pair_first[2]);
+        const __m128i k3 = _mm_set1_epi8((char)wl->pair_first[3]);
+        const __m128i k4 = _mm_set1_epi8((char)wl->pair_first[4]);
+        const __m128i k5 = _mm_set1_epi8((char)wl->pair_first[5]);
+        const __m128i k6 = _mm_set1_epi8((char)wl->pair_first[6]);
+        const __m128i k7 = _mm_set1_epi8((char)wl->pair_first[7]);
+        for (; i + 16 < len; i += 16) {
+            __m128i v = _mm_loadu_si128((const __m128i *)(u + i));
+            __m128i f = _mm_or_si128(v, case_bit);
+            __m128i lanes = _mm_or_si128(
+                _mm_or_si128(_mm_cmplt_epi8(v, low), _mm_cmpeq_epi8(f, k0)),
+                _mm_or_si128(_mm_or_si128(_mm_cmpeq_epi8(f, k1), _mm_cmpeq_epi8(f, k2)),
+                             _mm_cmpeq_epi8(f, k3)));
+            lanes = _mm_or_si128(
+                lanes, _mm_or_si128(_mm_or_si128(_mm_cmpeq_epi8(f, k4), _mm_cmpeq_epi8(f, k5)),
+                                    _mm_or_si128(_mm_cmpeq_epi8(f, k6), _mm_cmpeq_epi8(f, k7))));
+            unsigned m = (unsigned)_mm_movemask_epi8(lanes);
+            while (m) {
+                size_t p = i + (size_t)__builtin_ctz(m);
+                m &= m - 1;
+                if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out))
+                    return 1;
+            }
+        }
+    }
+#endif
+    for (; i + 4 < len; i += 4) {
+        const unsigned char *q = u + i;
+        if (!(table[two_bytes(q)] | table[two_bytes(q + 1)] | table[two_bytes(q + 2)] |
+              table[two_bytes(q + 3)]))
+            continue;
+        for (size_t p = i; p < i + 4; p++)
+            if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out))
+                return 1;
+    }
+    for (; i + 1 < len; i++)
+        if (table[two_bytes(u + i)] && pair_at_byte(s, block, t, len, i, quick, out))
+            return 1;
+    return pair_try(s, block, t, len, len - 1, out);
 }
 
 /* The block holding text position pos (the last block starting at or
@@ -989,7 +1241,7 @@ tt_status tt_searcher_run(tt_searcher *s, const tt_document *doc, tt_search_resu
                 /* the alternation stopped at a limit: every rule on its own */
                 s->n_hits = from_whole;
                 for (size_t r = 0; r < wl->n; r++)
-                    if (!s->stopped[r] && !wl->rules[r].whole_text &&
+                    if (!s->stopped[r] && !wl->rules[r].whole_text && !wl->rules[r].paired &&
                         (st = run_rule(s, r, bi, t, len, out)))
                         goto nomem;
             } else {
@@ -1005,6 +1257,10 @@ tt_status tt_searcher_run(tt_searcher *s, const tt_document *doc, tt_search_resu
                         goto nomem;
                 }
             }
+        }
+        if (wl->n_pair && pair_scan(s, bi, t, len, out)) {
+            st = TT_ENOMEM;
+            goto nomem;
         }
         if (!s->n_hits)
             continue;

@@ -12,6 +12,9 @@
 
 #include "tt_test.h"
 
+#define PCRE2_CODE_UNIT_WIDTH 8
+#include <pcre2.h>
+
 #include "termtide/alloc.h"
 #include "termtide/document.h"
 #include "termtide/search.h"
@@ -238,6 +241,41 @@ static void test_sha256_while_reading(void **state)
     unlink(gz);
 }
 
+/* Python's re (the reference: /usr/bin/python3's standard library) run over
+ * the file at path with the patterns, caseless: one line per match, sorted,
+ * "byte offset<TAB>rule", and with full = 1 also "<TAB>line<TAB>the match
+ * with its white space collapsed". The caller frees the result. */
+static char *python_re_hits(const char *const *pats, size_t np, const char *path, int full)
+{
+    char script[] = TT_TEST_TMP "tt_search_py_XXXXXX";
+    int fd = mkstemp(script);
+    assert_true(fd >= 0);
+    FILE *f = fdopen(fd, "w");
+    fprintf(f, "import re\npats = [");
+    for (size_t i = 0; i < np; i++)
+        fprintf(f, "r'%s', ", pats[i]);
+    fprintf(f, "]\n"
+               "t = open('%s', encoding='utf-8').read()\n"
+               "rows = []\n"
+               "for k, p in enumerate(pats):\n"
+               "    for m in re.finditer(p, t, re.IGNORECASE):\n"
+               "        off = len(t[:m.start()].encode('utf-8'))\n"
+               "        if %d:\n"
+               "            rows.append((off, k, t.count('\\n', 0, m.start()) + 1,\n"
+               "                         ' '.join(m.group().split())))\n"
+               "        else:\n"
+               "            rows.append((off, k))\n"
+               "for row in sorted(rows):\n"
+               "    print('\\t'.join(str(x) for x in row))\n",
+            path, full);
+    fclose(f);
+    char cmd[512];
+    snprintf(cmd, sizeof cmd, "%s %s", tt_test_python(), script);
+    char *want = run(cmd, NULL);
+    unlink(script);
+    return want;
+}
+
 /* ---- watch-list parsing ------------------------------------------------------- */
 
 static void test_watchlist_parse(void **state)
@@ -462,6 +500,25 @@ static void test_scan_equals_alone(void **state)
     tt_buf_release(&all);
 }
 
+/* Rules ra and rb of r hit the same places, in the same order. */
+static void assert_same_hits(const tt_search_result *r, size_t ra, size_t rb)
+{
+    size_t a = 0, b = 0;
+    for (;;) {
+        while (a < r->n_hits && r->hits[a].rule != ra)
+            a++;
+        while (b < r->n_hits && r->hits[b].rule != rb)
+            b++;
+        if (a == r->n_hits || b == r->n_hits)
+            break;
+        assert_int_equal(r->hits[a].offset, r->hits[b].offset);
+        assert_int_equal(r->hits[a].match_len, r->hits[b].match_len);
+        a++;
+        b++;
+    }
+    assert_true(a == r->n_hits && b == r->n_hits);
+}
+
 /* Rules that start with a known character run once over a document's whole
  * text (blocks and separators); their hits equal those of the same pattern
  * behind a lookahead, (?=[\s\S])(?:P), which means the same but is run
@@ -494,25 +551,372 @@ static void test_whole_text_equals_per_block(void **state)
             search_text(wl, synthetic, ".txt", &r);
         for (size_t i = 0; i < np; i++) {
             assert_int_equal(r.counts[2 * i], r.counts[2 * i + 1]);
-            size_t a = 0, b = 0;
-            for (;;) {
-                while (a < r.n_hits && r.hits[a].rule != 2 * i)
-                    a++;
-                while (b < r.n_hits && r.hits[b].rule != 2 * i + 1)
-                    b++;
-                if (a == r.n_hits || b == r.n_hits)
-                    break;
-                assert_int_equal(r.hits[a].offset, r.hits[b].offset);
-                assert_int_equal(r.hits[a].match_len, r.hits[b].match_len);
-                a++;
-                b++;
-            }
-            assert_true(a == r.n_hits && b == r.n_hits);
+            assert_same_hits(&r, 2 * i, 2 * i + 1);
         }
         tt_search_result_release(&r);
     }
     tt_watchlist_free(wl);
     tt_buf_release(&wl_text);
+}
+
+/* The whole-text path as before the pair scan took most phrase rules:
+ * each pattern of test_whole_text_equals_per_block with its lookahead
+ * twin in a watch-list of their own, where it is the only rule whose start
+ * the pair scan reads, so it runs over the whole text. */
+static void test_whole_text_alone_equals_per_block(void **state)
+{
+    (void)state;
+    static const char *pats[] = { "going\\s+concern", "e\\s*", "n\\s+\\w+", "t[\\s\\S]{0,3}",
+                                  "concern", "a\\w*", "o", "y\\W+\\w", "d\\s*$\\s*x",
+                                  "o[\\s\\S]*" };
+    const char *synthetic = "The going\n\nconcern. Yes, a year\n\nagain and then\n\n"
+                            "n\n\nx going concern\n\ny\n\nod\n\nxd\n\nxt\n\nt a\n";
+    for (size_t i = 0; i < sizeof pats / sizeof pats[0]; i++) {
+        char text[256];
+        snprintf(text, sizeof text, "w\t%s\nb\t(?=[\\s\\S])(?:%s)\n", pats[i], pats[i]);
+        tt_watchlist *wl = parse_ok(text, NULL);
+        for (size_t f = 0; f < 2; f++) {
+            tt_search_result r;
+            tt_search_result_init(&r);
+            if (f)
+                search_text(wl, synthetic, ".txt", &r);
+            else
+                search_file(wl, FIX "crosscheck.txt", &r);
+            assert_int_equal(r.counts[0], r.counts[1]);
+            assert_same_hits(&r, 0, 1);
+            tt_search_result_release(&r);
+        }
+        tt_watchlist_free(wl);
+    }
+}
+
+/* ---- the pair scan ------------------------------------------------------------ */
+
+/* Appends code point cp as UTF-8. */
+static void put_utf8(tt_buf *b, uint32_t cp)
+{
+    char u[4];
+    size_t n;
+    if (cp < 0x80) {
+        u[0] = (char)cp;
+        n = 1;
+    } else if (cp < 0x800) {
+        u[0] = (char)(0xC0 | cp >> 6);
+        u[1] = (char)(0x80 | (cp & 0x3F));
+        n = 2;
+    } else if (cp < 0x10000) {
+        u[0] = (char)(0xE0 | cp >> 12);
+        u[1] = (char)(0x80 | (cp >> 6 & 0x3F));
+        u[2] = (char)(0x80 | (cp & 0x3F));
+        n = 3;
+    } else {
+        u[0] = (char)(0xF0 | cp >> 18);
+        u[1] = (char)(0x80 | (cp >> 12 & 0x3F));
+        u[2] = (char)(0x80 | (cp >> 6 & 0x3F));
+        u[3] = (char)(0x80 | (cp & 0x3F));
+        n = 4;
+    }
+    assert_int_equal(tt_buf_append(b, u, n), TT_OK);
+}
+
+/* Every code point from `from` on, once each (no surrogates). */
+static void all_code_points(tt_buf *b, uint32_t from)
+{
+    for (uint32_t cp = from; cp <= 0x10FFFF; cp++)
+        if (cp < 0xD800 || cp > 0xDFFF)
+            put_utf8(b, cp);
+}
+
+/* The code point starting at s. */
+static uint32_t utf8_at(const unsigned char *s)
+{
+    if (s[0] < 0x80)
+        return s[0];
+    if (s[0] < 0xE0)
+        return (uint32_t)(s[0] & 0x1F) << 6 | (s[1] & 0x3F);
+    if (s[0] < 0xF0)
+        return (uint32_t)(s[0] & 0x0F) << 12 | (uint32_t)(s[1] & 0x3F) << 6 | (s[2] & 0x3F);
+    return (uint32_t)(s[0] & 0x07) << 18 | (uint32_t)(s[1] & 0x3F) << 12 |
+           (uint32_t)(s[2] & 0x3F) << 6 | (s[3] & 0x3F);
+}
+
+/* The facts the pair scan's reading of a rule's start rests on (watchlist.c,
+ * fill_pair_sets), checked against PCRE2 itself (the library the rules run
+ * on, with the options rules are compiled with) over every character: under
+ * caseless UTF matching, with or without UCP, a printable ASCII character
+ * matches no character above ASCII but k and K U+212A KELVIN SIGN and s and
+ * S U+017F LATIN SMALL LETTER LONG S, and among ASCII only itself and its
+ * other case; the characters \s matches under UCP are ASCII TAB to CR, 0x1C
+ * to 0x1F or space, or start with byte C2, E1, E2 or E3. */
+static void test_pair_sets_against_pcre2(void **state)
+{
+    (void)state;
+    tt_buf subject;
+    tt_buf_init(&subject, 0);
+    all_code_points(&subject, 1);
+    PCRE2_SPTR subj = (PCRE2_SPTR)subject.data;
+    pcre2_match_data *md = pcre2_match_data_create(1, NULL);
+    for (int ucp = 0; ucp < 2; ucp++)
+        for (unsigned c = 0x21; c < 0x7F; c++) {
+            char pat[3] = { '\\', (char)c, '\0' };
+            int plain = (c | 0x20) >= 'a' && (c | 0x20) <= 'z';
+            if (plain || (c >= '0' && c <= '9')) { /* a backslash would make an escape */
+                pat[0] = (char)c;
+                pat[1] = '\0';
+            }
+            int err;
+            PCRE2_SIZE off;
+            pcre2_code *code = pcre2_compile((PCRE2_SPTR)pat, PCRE2_ZERO_TERMINATED,
+                                             PCRE2_UTF | PCRE2_CASELESS | (ucp ? PCRE2_UCP : 0),
+                                             &err, &off, NULL);
+            assert_non_null(code);
+            pcre2_jit_compile(code, PCRE2_JIT_COMPLETE);
+            PCRE2_SIZE pos = 0;
+            size_t found = 0;
+            while (pcre2_match(code, subj, subject.len, pos, PCRE2_NO_UTF_CHECK, md, NULL) >= 0) {
+                PCRE2_SIZE *ov = pcre2_get_ovector_pointer(md);
+                uint32_t cp = utf8_at(subj + ov[0]);
+                found++;
+                if (cp < 0x80)
+                    assert_true(cp == c || (plain && cp == (c ^ 0x20)));
+                else if ((c | 0x20) == 'k' && plain)
+                    assert_int_equal(cp, 0x212A);
+                else if ((c | 0x20) == 's' && plain)
+                    assert_int_equal(cp, 0x17F);
+                else
+                    fail_msg("'%c' matches U+%04X caselessly", c, cp);
+                pos = ov[1];
+            }
+            /* itself, its other case, and for k and s one more */
+            assert_int_equal(found, (plain ? 2 : 1) + ((c | 0x20) == 'k' || (c | 0x20) == 's'));
+            pcre2_code_free(code);
+        }
+    int err;
+    PCRE2_SIZE off;
+    pcre2_code *space = pcre2_compile((PCRE2_SPTR) "\\s", PCRE2_ZERO_TERMINATED,
+                                      PCRE2_UTF | PCRE2_UCP | PCRE2_CASELESS, &err, &off, NULL);
+    assert_non_null(space);
+    pcre2_jit_compile(space, PCRE2_JIT_COMPLETE);
+    PCRE2_SIZE pos = 0;
+    size_t found = 0;
+    while (pcre2_match(space, subj, subject.len, pos, PCRE2_NO_UTF_CHECK, md, NULL) >= 0) {
+        PCRE2_SIZE *ov = pcre2_get_ovector_pointer(md);
+        unsigned char lead = subj[ov[0]];
+        if (lead < 0x80)
+            assert_true((lead >= 0x09 && lead <= 0x0D) || (lead >= 0x1C && lead <= 0x20));
+        else
+            assert_true(lead == 0xC2 || lead == 0xE1 || lead == 0xE2 || lead == 0xE3);
+        found++;
+        pos = ov[1];
+    }
+    assert_true(found >= 20);
+    pcre2_code_free(space);
+    pcre2_match_data_free(md);
+    tt_buf_release(&subject);
+}
+
+/* Searches text with all the rules in one watch-list and with each rule
+ * alone; every rule must get the same hits (offset and length). Returns
+ * the hits of the whole list. */
+static size_t check_equals_alone(const char *const *rules, size_t nr, const char *text,
+                                 const tt_search_options *o)
+{
+    tt_buf all;
+    tt_buf_init(&all, 0);
+    for (size_t i = 0; i < nr; i++)
+        tt_buf_printf(&all, "r%zu\t%s\n", i, rules[i]);
+    tt_watchlist *wl = parse_ok(all.data, o);
+    tt_search_result r;
+    tt_search_result_init(&r);
+    search_text(wl, text, ".txt", &r);
+    for (size_t i = 0; i < nr; i++) {
+        char one[256];
+        snprintf(one, sizeof one, "r%zu\t%s\n", i, rules[i]);
+        tt_watchlist *w1 = parse_ok(one, o);
+        tt_search_result r1;
+        tt_search_result_init(&r1);
+        search_text(w1, text, ".txt", &r1);
+        if (r.counts[i] != r1.counts[0])
+            fail_msg("rule %s: %zu hits among all, %zu alone", rules[i], r.counts[i],
+                     r1.counts[0]);
+        size_t k = 0;
+        for (size_t h = 0; h < r.n_hits; h++) {
+            if (r.hits[h].rule != i)
+                continue;
+            assert_true(k < r1.n_hits);
+            if (r.hits[h].offset != r1.hits[k].offset ||
+                r.hits[h].match_len != r1.hits[k].match_len)
+                fail_msg("rule %s: hit %zu at %lld+%zu among all, %lld+%zu alone", rules[i], k,
+                         r.hits[h].offset, r.hits[h].match_len, r1.hits[k].offset,
+                         r1.hits[k].match_len);
+            k++;
+        }
+        assert_int_equal(k, r1.n_hits);
+        tt_search_result_release(&r1);
+        tt_watchlist_free(w1);
+    }
+    size_t n = r.n_hits;
+    tt_search_result_release(&r);
+    tt_watchlist_free(wl);
+    tt_buf_release(&all);
+    return n;
+}
+
+/* Rules whose start the pair scan reads (watchlist.c, start_steps) give
+ * exactly the hits each gets alone (then it runs on its own, over the
+ * whole text or per block), caseless, with --case and with --words: rules
+ * sharing a prefix and overlapping each other, one overlapping its own
+ * matches, caseless k and s against U+212A and U+017F, every character
+ * PCRE2's \s matches under UCP inside a phrase, white-space runs broken by
+ * a character above ASCII, \b-led rules, \s-led rules, matches at the very
+ * last byte of a block (and of the text), and rules the reading refuses or
+ * stops early on (a group, a class, an alternative at the top level, also
+ * behind quoting or a comment, a verb, an optional character, a dot). Run
+ * with few first bytes (the SIMD first look), with many, and with more
+ * than 64 rules. */
+static void test_pair_scan_equals_alone(void **state)
+{
+    (void)state;
+    static const char *rules[] = {
+        "the\\s+are", "the\\s+a", "the", "th", "he\\s+a", "ok\\s+then", "is\\s+and", "ask",
+        "\\bis\\b", "\\bthe\\s+end\\b", "s\\b", "q", "xq", "aa", "a\\s+\\s+b", "\\s+and",
+        "a\\s\\S", "k+s", "(?:the)\\s+are", "the|q", "x\\Q|\\E", "th?e", "[Tt]he\\s+are",
+        "the.are", "t\\w+", "K\\s+then", "S\\s*and", "\\$5", "a\\+b", "o\\s+?then",
+        "ok{0,2}\\s+then", "a\\Q[\\E|the", "a(?#[)|the", "a(*COMMIT)nd", "ask\\s"
+    };
+    static const char *few[] = { "the\\s+are", "the", "a\\s+and", "aa", "q", "th",
+                                 "t\\s+q", "a\\b", "\\s+and", "k\\s+then" };
+    /* as many first letters as the SIMD first look takes */
+    static const char *eight[] = { "the\\s+are", "of\\s+the", "and\\s+a", "was\\s+the",
+                                   "for\\s+a", "is\\s+and", "ok\\s+then", "q", "xq" };
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    tt_buf_puts(&text, "xq wxq The are then the  are. tHe\xE2\x80\x83" "are the\xE3\x80\x80\xE3\x80\x80"
+                       "are the \xE2\x80\x83 are\n\n"
+                       "O\xE2\x84\xAA then ok then oK\xE2\x80\x89then i\xC5\xBF and I\xC5\xBF"
+                       "\xC2\xA0" "and Is and a\xE2\x84\xAA" "sk \xC5\xBF" "and\n\n"
+                       "aaaaa is this is. xq a+b $5 $50\n\nq\n\nxxq\n\nt q\n\n"
+                       "the end theend a  b a \xE2\x80\x83" "b and\xE3\x80\x80" "and "
+                       "k\xE2\x84\xAAss o   then o\xE2\x80\x83then as\xE2\x84\xAA then\n\n");
+    /* every White_Space character (by PCRE2's \s under UCP) inside a phrase */
+    tt_buf cps;
+    tt_buf_init(&cps, 0);
+    all_code_points(&cps, 0x80);
+    int err;
+    PCRE2_SIZE off;
+    pcre2_code *space = pcre2_compile((PCRE2_SPTR) "\\s", PCRE2_ZERO_TERMINATED,
+                                      PCRE2_UTF | PCRE2_UCP, &err, &off, NULL);
+    assert_non_null(space);
+    pcre2_match_data *md = pcre2_match_data_create(1, NULL);
+    PCRE2_SIZE pos = 0;
+    while (pcre2_match(space, (PCRE2_SPTR)cps.data, cps.len, pos, PCRE2_NO_UTF_CHECK, md,
+                       NULL) >= 0) {
+        PCRE2_SIZE *ov = pcre2_get_ovector_pointer(md);
+        for (int form = 0; form < 3; form++) {
+            tt_buf_puts(&text, form == 0 ? "the" : form == 1 ? " a" : " is ");
+            tt_buf_append(&text, cps.data + ov[0], ov[1] - ov[0]);
+            tt_buf_puts(&text, form == 0 ? "are" : form == 1 ? "and" : " and");
+        }
+        pos = ov[1];
+    }
+    pcre2_match_data_free(md);
+    pcre2_code_free(space);
+    tt_buf_release(&cps);
+    tt_buf_puts(&text, " tha\n\nend aa\n\nthe are th");
+
+    tt_search_options o;
+    for (int mode = 0; mode < 3; mode++) {
+        tt_search_options_init(&o);
+        o.case_sensitive = mode == 1;
+        o.whole_words = mode == 2;
+        assert_true(check_equals_alone(rules, sizeof rules / sizeof rules[0], text.data, &o) >
+                    100);
+        assert_true(check_equals_alone(few, sizeof few / sizeof few[0], text.data, &o) > 50);
+        assert_true(check_equals_alone(eight, sizeof eight / sizeof eight[0], text.data, &o) > 15);
+    }
+    /* 70 rules: more than one 64-bit word of rules */
+    static const char *firsts[] = { "the", "a", "is", "ok", "th", "and", "q" };
+    static const char *seconds[] = { "are", "and", "then", "the", "a", "is", "end", "th", "k",
+                                     "q" };
+    char store[70][32];
+    const char *many[70];
+    for (size_t i = 0; i < 70; i++) {
+        snprintf(store[i], sizeof store[i], "%s\\s+%s", firsts[i % 7], seconds[i / 7]);
+        many[i] = store[i];
+    }
+    tt_search_options_init(&o);
+    assert_true(check_equals_alone(many, 70, text.data, &o) > 50);
+    tt_buf_release(&text);
+}
+
+/* Cross-check at scale: on a generated text of common short words (with
+ * U+212A, U+017F, U+2003 among them), every hit's rule and byte offset
+ * equals what Python's re module (CPython standard library, re.finditer
+ * with re.IGNORECASE) finds in the file, run at test time; once with more
+ * first letters than the SIMD first look takes and once with few. */
+static void test_pair_scan_against_python_re(void **state)
+{
+    (void)state;
+    static const char *words[] = { "the", "are", "of", "that", "to", "and", "a", "was", "which",
+                                   "this", "or", "is", "on", "for", "in", "ok", "ask", "kiss",
+                                   "data", "then", "THE", "The", "O\xE2\x84\xAA",
+                                   "i\xC5\xBF", "a\xE2\x84\xAAsk", "\xC5\xBFo", "tha", "at" };
+    static const char *seps[] = { " ", " ", " ", " ", " ", "  ", "\n", "\xE2\x80\x83", ", ",
+                                  " \xE2\x80\x83 " };
+    static const char *many[] = {
+        "the\\s+are", "of\\s+that", "to\\s+to", "and\\s+a", "are\\s+the", "was\\s+the",
+        "a\\s+and", "for\\s+of", "of\\s+for", "the\\s+was", "the\\s+which", "this\\s+the",
+        "the\\s+this", "the\\s+or", "on\\s+of", "which\\s+the", "or\\s+the", "to\\s+in",
+        "is\\s+and", "of\\s+on", "ok\\s+then", "ask\\s+the", "is", "kiss", "a\\s+a",
+        "\\bthe\\b", "s\\s+t", "at", "k\\s", "ta\\b", "so\\s+the", "data\\s+the", "en\\s+a",
+        "n\\s+t"
+    };
+    static const char *few[] = { "the\\s+are", "the\\s+was", "a\\s+and", "at", "ta\\b",
+                                 "the\\s+a" };
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    uint32_t seed = 12345;
+    for (int para = 0; para < 40; para++) {
+        for (int w = 0; w < 800; w++) {
+            seed = seed * 1103515245u + 12345u;
+            tt_buf_puts(&text, words[(seed >> 16) % (sizeof words / sizeof words[0])]);
+            seed = seed * 1103515245u + 12345u;
+            tt_buf_puts(&text, seps[(seed >> 16) % (sizeof seps / sizeof seps[0])]);
+        }
+        tt_buf_puts(&text, "end.\n\n");
+    }
+    char *path = write_temp(text.data, text.len, ".txt");
+    for (int list = 0; list < 2; list++) {
+        const char *const *pats = list ? few : many;
+        size_t np = list ? sizeof few / sizeof few[0] : sizeof many / sizeof many[0];
+        tt_buf wltext;
+        tt_buf_init(&wltext, 0);
+        for (size_t i = 0; i < np; i++)
+            tt_buf_printf(&wltext, "r%zu\t%s\n", i, pats[i]);
+        tt_search_options o;
+        tt_search_options_init(&o);
+        o.context = 0;
+        tt_watchlist *wl = parse_ok(wltext.data, &o);
+        tt_search_result r;
+        tt_search_result_init(&r);
+        search_file(wl, path, &r);
+
+        char *want = python_re_hits(pats, np, path, 0);
+        tt_buf got;
+        tt_buf_init(&got, 0);
+        for (size_t h = 0; h < r.n_hits; h++)
+            tt_buf_printf(&got, "%lld\t%zu\n", r.hits[h].offset, r.hits[h].rule);
+        assert_true(r.n_hits > 1000);
+        assert_string_equal(got.data, want);
+        free(want);
+        tt_buf_release(&got);
+        tt_buf_release(&wltext);
+        tt_watchlist_free(wl);
+        tt_search_result_release(&r);
+    }
+    unlink(path);
+    free(path);
+    tt_buf_release(&text);
 }
 
 /* A phrase split by markup, a line break, a hyphenated line end or NBSP is
@@ -691,31 +1095,7 @@ static void test_crosscheck_python_re(void **state)
     tt_search_result_init(&r);
     search_file(wl, FIX "crosscheck.txt", &r);
 
-    char script[] = TT_TEST_TMP "tt_search_py_XXXXXX";
-    int fd = mkstemp(script);
-    FILE *f = fdopen(fd, "w");
-    fprintf(f, "import re\npats = [");
-    for (size_t i = 0; i < np; i++) {
-        fputs("r'", f);
-        fputs(patterns[i], f);
-        fputs("', ", f);
-    }
-    fprintf(f, "]\n"
-               "t = open('%scrosscheck.txt', encoding='utf-8').read()\n"
-               "rows = []\n"
-               "for k, p in enumerate(pats):\n"
-               "    for m in re.finditer(p, t, re.IGNORECASE):\n"
-               "        off = len(t[:m.start()].encode('utf-8'))\n"
-               "        rows.append((off, k, t.count('\\n', 0, m.start()) + 1,\n"
-               "                     ' '.join(m.group().split())))\n"
-               "for row in sorted(rows):\n"
-               "    print('%%d\\t%%d\\t%%d\\t%%s' %% row)\n",
-            FIX);
-    fclose(f);
-    char cmd[512];
-    snprintf(cmd, sizeof cmd, "%s %s", tt_test_python(), script);
-    char *want = run(cmd, NULL);
-    unlink(script);
+    char *want = python_re_hits(patterns, np, FIX "crosscheck.txt", 1);
 
     tt_buf got;
     tt_buf_init(&got, 0);
@@ -1009,6 +1389,10 @@ int main(void)
         cmocka_unit_test(test_near),
         cmocka_unit_test(test_scan_equals_alone),
         cmocka_unit_test(test_whole_text_equals_per_block),
+        cmocka_unit_test(test_whole_text_alone_equals_per_block),
+        cmocka_unit_test(test_pair_sets_against_pcre2),
+        cmocka_unit_test(test_pair_scan_equals_alone),
+        cmocka_unit_test(test_pair_scan_against_python_re),
         cmocka_unit_test(test_split_phrases),
         cmocka_unit_test(test_html_offsets),
         cmocka_unit_test(test_html_hidden_offsets),
