@@ -29,7 +29,13 @@
  * go into the dictionary inside the same transaction, so a rollback also
  * drops them from memory (the in-memory maps are trimmed back to the
  * committed size). One writer at a time: flock() on the database file
- * (independent of SQLite's own fcntl locks on Linux), held while open. */
+ * (independent of SQLite's own fcntl locks on Linux), held while open.
+ * The write-ahead log is copied back into the database (a checkpoint, with
+ * its fsync) once it holds 16384 pages (64 MiB at 4 KiB pages) instead of
+ * SQLite's default 1000: an index of the 200 MB benchmark corpus then
+ * checkpoints once, at the end, instead of at every 4 MiB (3.3 s -> 2.8 s).
+ * Durability is unchanged: synchronous=NORMAL keeps the database whole
+ * after a crash, at worst without the last transactions. */
 #include <sqlite3.h>
 #include <sys/file.h>
 #include <sys/stat.h>
@@ -273,7 +279,8 @@ tt_status tt_index_open(const char *path, tt_index_mode mode, tt_index **out, tt
     }
     if ((st = exec(ix, "PRAGMA foreign_keys=ON", err)))
         goto fail;
-    if (ix->writer && (st = exec(ix, "PRAGMA synchronous=NORMAL", err)))
+    if (ix->writer && ((st = exec(ix, "PRAGMA synchronous=NORMAL", err)) ||
+                       (st = exec(ix, "PRAGMA wal_autocheckpoint=16384", err))))
         goto fail;
     *out = ix;
     return TT_OK;
