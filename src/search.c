@@ -688,7 +688,7 @@ static int pair_scan(tt_searcher *s, size_t block, const char *t, size_t len,
     int quick = wl->pair_words == 1;
     size_t i = 0;
 #ifdef __SSE2__
-    if (wl->pair_simd) {
+    if (wl->pair_simd && tti_use_simd) {
         const __m128i case_bit = _mm_set1_epi8(0x20);
         /* signed: below 0x21 or above ASCII (negative); -128: nothing */
         const __m128i low = _mm_set1_epi8(wl->pair_low ? 0x21 : -128);

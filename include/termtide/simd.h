@@ -1,7 +1,7 @@
 /* termtide — the switch for the SIMD paths.
  *
  * The stages that classify bytes in bulk (plain-text extraction, the
- * tokenizer) use SSE2 where the compiler targets it, as on every x86-64,
+ * tokenizer, search's pair scan) use SSE2 where the compiler targets it, as on every x86-64,
  * and portable code elsewhere; both give the same output. */
 #ifndef TT_SIMD_H
 #define TT_SIMD_H
