@@ -241,6 +241,21 @@ static void test_sha256_while_reading(void **state)
     unlink(gz);
 }
 
+/* A watch-list of the patterns as rules r0, r1, ... with no context. */
+static tt_watchlist *watchlist_of(const char *const *pats, size_t np)
+{
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    for (size_t i = 0; i < np; i++)
+        tt_buf_printf(&text, "r%zu\t%s\n", i, pats[i]);
+    tt_search_options o;
+    tt_search_options_init(&o);
+    o.context = 0;
+    tt_watchlist *wl = parse_ok(text.data, &o);
+    tt_buf_release(&text);
+    return wl;
+}
+
 /* Python's re (the reference: /usr/bin/python3's standard library) run over
  * the file at path with the patterns, caseless: one line per match, sorted,
  * "byte offset<TAB>rule", and with full = 1 also "<TAB>line<TAB>the match
@@ -889,14 +904,7 @@ static void test_pair_scan_against_python_re(void **state)
     for (int list = 0; list < 2; list++) {
         const char *const *pats = list ? few : many;
         size_t np = list ? sizeof few / sizeof few[0] : sizeof many / sizeof many[0];
-        tt_buf wltext;
-        tt_buf_init(&wltext, 0);
-        for (size_t i = 0; i < np; i++)
-            tt_buf_printf(&wltext, "r%zu\t%s\n", i, pats[i]);
-        tt_search_options o;
-        tt_search_options_init(&o);
-        o.context = 0;
-        tt_watchlist *wl = parse_ok(wltext.data, &o);
+        tt_watchlist *wl = watchlist_of(pats, np);
         tt_search_result r;
         tt_search_result_init(&r);
         search_file(wl, path, &r);
@@ -910,7 +918,6 @@ static void test_pair_scan_against_python_re(void **state)
         assert_string_equal(got.data, want);
         free(want);
         tt_buf_release(&got);
-        tt_buf_release(&wltext);
         tt_watchlist_free(wl);
         tt_search_result_release(&r);
     }
@@ -1083,14 +1090,7 @@ static void test_crosscheck_python_re(void **state)
                                       "\\d{1,3}(?:,\\d{3})+", "\\brestat\\w*", "lawsuits?",
                                       "caf\\w", "z\\w+rich", "doubt\\s+\\w+" };
     size_t np = sizeof patterns / sizeof patterns[0];
-    tt_buf wltext;
-    tt_buf_init(&wltext, 0);
-    for (size_t i = 0; i < np; i++)
-        tt_buf_printf(&wltext, "r%zu\t%s\n", i, patterns[i]);
-    tt_search_options o;
-    tt_search_options_init(&o);
-    o.context = 0;
-    tt_watchlist *wl = parse_ok(wltext.data, &o);
+    tt_watchlist *wl = watchlist_of(patterns, np);
     tt_search_result r;
     tt_search_result_init(&r);
     search_file(wl, FIX "crosscheck.txt", &r);
@@ -1109,7 +1109,6 @@ static void test_crosscheck_python_re(void **state)
     assert_string_equal(got.data, want);
     free(want);
     tt_buf_release(&got);
-    tt_buf_release(&wltext);
     tt_watchlist_free(wl);
     tt_search_result_release(&r);
 }
