@@ -111,6 +111,17 @@ static void worker_state_init(worker_state *ws, const tt_batch_options *opt,
     ws->partial = partial;
 }
 
+/* Brings the worker's partial table up to date with the hits its counter
+ * still holds (see tti_counter_count_held); before the partial is read. */
+static void worker_state_finish(worker_state *ws)
+{
+    if (ws->counter && ws->partial) {
+        tt_status st = tti_counter_flush(ws->counter, ws->partial);
+        if (st && ws->partial_status == TT_OK)
+            ws->partial_status = st;
+    }
+}
+
 static int worker_state_ok(const worker_state *ws, const tt_batch_options *opt)
 {
     return ws->reader && ws->astate_ok && (only_analyse(opt) || ws->counter);
@@ -243,8 +254,9 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
          * partial table, with no table per document to fill and merge. A
          * failure here (out of memory, too many distinct terms) may leave
          * part of the document in the partial, so it fails the total, as a
-         * failed merge would. */
-        st = tt_counter_count(w->counter, doc->blocks, w->partial, &stats);
+         * failed merge would. The counter may hold hits of the partial
+         * until the worker ends (worker_state_finish). */
+        st = tti_counter_count_held(w->counter, doc->blocks, w->partial, &stats);
         if (st && *w->partial_status == TT_OK)
             *w->partial_status = st;
     } else {
@@ -373,6 +385,9 @@ static void *worker_main(void *arg)
         s->done = 1;
         pthread_cond_broadcast(&r->cond_done);
     }
+    pthread_mutex_unlock(&r->lock);
+    worker_state_finish(&ws);
+    pthread_mutex_lock(&r->lock);
     if (ws.partial)
         r->partials[r->n_partials++] = ws.partial; /* under the lock */
     if (ws.partial_status && r->total_status == TT_OK)
@@ -474,6 +489,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
             if (opt->on_progress)
                 opt->on_progress(opt->ctx, i + 1, inputs->n, sum->bytes, bytes_total);
         }
+        worker_state_finish(&ws);
         worker_state_release(&ws, opt);
         tt_free(r.slots);
         r.total_status = ws.partial_status;

@@ -57,7 +57,19 @@
  *
  * The general cache takes every other token of up to CACHE_RAW bytes (and
  * all of them with stemming): direct-mapped, one 64-byte entry per line,
- * keyed by the raw bytes, the term stored beside them. */
+ * keyed by the raw bytes, the term stored beside them.
+ *
+ * Pending counts: a hit of a kept term in the ASCII cache does not touch the
+ * term table; it adds one to the way's `pending`, and the set goes on a dirty
+ * list the first time. The table is brought up to date from the dirty list
+ * at the end of each call that counts (tt_counter_count, _count_text), when
+ * a way with pending hits is evicted, and when the list fills. So the table
+ * sees one add per distinct term of a call instead of one per token: its
+ * slots (spread over megabytes for a large vocabulary, a cache miss each)
+ * and the term's bytes are not read in the loop, only the cache's line,
+ * which the lookup has just read. Between calls every pending is 0, so a
+ * counter can count into another table next. On an error the pending hits
+ * are dropped with the call's table, which the caller discards. */
 #define ASCII_BITS 13 /* 8192 sets of two ways: 512 KB */
 #define ASCII_RAW 16
 #define CACHE_BITS 12 /* 4096 entries: 256 KB */
@@ -65,6 +77,9 @@
 #define CACHE_STOP 1u
 #define CACHE_SHORT 2u
 #define CACHE_EMPTY 4u
+/* The dirty list holds the numbers of the sets that may hold pending hits,
+ * each at most once (a byte per set says whether it is on the list). */
+#define DIRTY_CAP (1u << ASCII_BITS)
 
 typedef struct ascii_way {
     uint64_t key[2];  /* the token, ASCII-lowercased, zero-padded */
@@ -73,7 +88,7 @@ typedef struct ascii_way {
     uint8_t term_off; /* the term is key bytes [term_off, term_off + term_len) */
     uint8_t term_len;
     uint8_t flags;
-    uint32_t unused;
+    uint32_t pending; /* hits not yet added to the table (see below) */
 } ascii_way;
 
 typedef struct ascii_set {
@@ -121,6 +136,10 @@ struct tt_counter {
     void *cache_mem;    /* the allocation cache points into */
     ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
     void *ascii_mem;
+    uint32_t *dirty;    /* DIRTY_CAP set numbers with pending hits (maybe) */
+    uint8_t *on_dirty;  /* per set: 1 when on the dirty list */
+    size_t n_dirty;
+    tt_status fill_status; /* an error of ascii_fill, for count_block */
     resolved general;   /* the last answer of resolve_general */
 };
 
@@ -162,6 +181,12 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
             return NULL;
         }
         c->ascii = (ascii_set *)(((uintptr_t)c->ascii_mem + 63) & ~(uintptr_t)63);
+        c->dirty = tt_calloc(DIRTY_CAP, sizeof *c->dirty);
+        c->on_dirty = tt_calloc(DIRTY_CAP, 1);
+        if (!c->dirty || !c->on_dirty) {
+            tt_counter_free(c);
+            return NULL;
+        }
     }
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
@@ -186,6 +211,8 @@ void tt_counter_free(tt_counter *c)
         tt_buf_release(&c->win[i].term);
     tt_free(c->cache_mem);
     tt_free(c->ascii_mem);
+    tt_free(c->dirty);
+    tt_free(c->on_dirty);
     tt_free(c);
 }
 
@@ -417,13 +444,43 @@ static inline int ascii_way_holds(const ascii_way *w, const uint64_t k[2], size_
     return ((w->key[0] ^ k[0]) | (w->key[1] ^ k[1]) | (w->raw_len ^ len)) == 0;
 }
 
+/* Adds a way's pending hits to table. */
+static tt_status way_flush(ascii_way *w, tt_termtable *table)
+{
+    if (!w->pending)
+        return TT_OK;
+    uint32_t n = w->pending;
+    w->pending = 0;
+    return tti_termtable_add_hashed(table, (const char *)w->key + w->term_off, w->term_len,
+                                    w->hash, n);
+}
+
+/* Brings table up to date with every pending hit and empties the dirty
+ * list; on failure (or with table NULL) drops the hits left. */
+static tt_status flush_pending(tt_counter *c, tt_termtable *table)
+{
+    tt_status s = TT_OK;
+    for (size_t i = 0; i < c->n_dirty; i++) {
+        c->on_dirty[c->dirty[i]] = 0;
+        ascii_set *set = &c->ascii[c->dirty[i]];
+        for (int j = 0; j < 2; j++) {
+            if (!s && table)
+                s = way_flush(&set->way[j], table);
+            else
+                set->way[j].pending = 0;
+        }
+    }
+    c->n_dirty = 0;
+    return s;
+}
+
 /* A miss in the ASCII cache: what tt_normalize does for an ASCII token
  * (fold, then tti_term_bounds) done on the lowercased key, entered as way 0
  * of set (way 0 moving to way 1). Returns NULL, entering nothing, when the
  * token holds '`' (tt_normalize makes it '\'', so the term would not be a
  * piece of the key). */
-static const ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
-                                   size_t len)
+static ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2], size_t len,
+                             tt_termtable *table)
 {
     unsigned char low[ASCII_RAW];
     memcpy(low, k, sizeof low);
@@ -433,6 +490,11 @@ static const ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t
     tti_term_bounds(low, len, &a, &b);
     uint64_t h;
     unsigned f = classify(c, (const char *)low + a, b - a, &h);
+    tt_status s = way_flush(&set->way[1], table);
+    if (s) {
+        c->fill_status = s;
+        return NULL;
+    }
     set->way[1] = set->way[0];
     ascii_way *w = &set->way[0];
     w->key[0] = k[0];
@@ -442,14 +504,15 @@ static const ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t
     w->term_off = (uint8_t)a;
     w->term_len = (uint8_t)(b - a);
     w->flags = (uint8_t)f;
+    w->pending = 0;
     return w;
 }
 
 /* The ASCII cache's way for a token of len 1..ASCII_RAW bytes (room bytes
  * readable from raw on), filled on a miss; NULL when the token is not for
  * this cache (not ASCII, or holding '`'). */
-static inline const ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const char *raw,
-                                            size_t len, size_t room)
+static inline ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const char *raw,
+                                      size_t len, size_t room, tt_termtable *table)
 {
     uint64_t k[2];
     if (!ascii_lower_key(raw, len, room, k))
@@ -464,7 +527,7 @@ static inline const ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, con
         *w = tmp;
         return w;
     }
-    return ascii_fill(c, set, k, len);
+    return ascii_fill(c, set, k, len, table);
 }
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
@@ -501,15 +564,34 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         size_t tlen;
         uint64_t h;
         unsigned flags;
-        const ascii_way *w = NULL;
+        ascii_way *w = NULL;
         if (ascii && tok.len - 1 < ASCII_RAW)
-            w = ascii_lookup(c, ascii, text + tok.off, tok.len, len - tok.off);
+            w = ascii_lookup(c, ascii, text + tok.off, tok.len, len - tok.off, table);
         if (w) {
+            if (!w->flags && unigram_only) {
+                /* A kept term: a pending hit (see the cache's comment). */
+                st->terms_kept++;
+                if (w->pending++ == 0) {
+                    uint32_t set = (uint32_t)(w - &ascii[0].way[0]) / 2;
+                    if (!c->on_dirty[set]) {
+                        c->on_dirty[set] = 1;
+                        c->dirty[c->n_dirty++] = set;
+                    }
+                } else if (w->pending == UINT32_MAX && (s = way_flush(w, table))) {
+                    return s;
+                }
+                continue;
+            }
             term = (const char *)w->key + w->term_off;
             tlen = w->term_len;
             h = w->hash;
             flags = w->flags;
         } else {
+            if (c->fill_status) {
+                s = c->fill_status;
+                c->fill_status = TT_OK;
+                return s;
+            }
             s = resolve_general(c, text + tok.off, tok.len, tok.kind, &c->general);
             if (s == TT_ELIMIT) {
                 /* NFKC can expand a token many times over (one U+FDFA
@@ -557,22 +639,38 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
     return TT_OK;
 }
 
-tt_status tt_counter_count(tt_counter *c, const tt_blocks *blocks,
-                           tt_termtable *table, tt_doc_stats *stats)
+tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks,
+                                 tt_termtable *table, tt_doc_stats *stats)
 {
     for (size_t i = 0; i < blocks->n; i++) {
         const tt_block *b = &blocks->items[i];
         tt_status s = count_block(c, blocks->text.data + b->off, b->len, table, stats);
-        if (s)
+        if (s) {
+            flush_pending(c, NULL);
             return s;
+        }
     }
     return TT_OK;
+}
+
+tt_status tti_counter_flush(tt_counter *c, tt_termtable *table)
+{
+    return flush_pending(c, table);
+}
+
+tt_status tt_counter_count(tt_counter *c, const tt_blocks *blocks,
+                           tt_termtable *table, tt_doc_stats *stats)
+{
+    tt_status s = tti_counter_count_held(c, blocks, table, stats);
+    return s ? s : flush_pending(c, table);
 }
 
 tt_status tt_counter_count_text(tt_counter *c, const char *text, size_t len,
                                 tt_termtable *table, tt_doc_stats *stats)
 {
-    return count_block(c, text, len, table, stats);
+    tt_status s = count_block(c, text, len, table, stats);
+    tt_status f = flush_pending(c, s ? NULL : table);
+    return s ? s : f;
 }
 
 size_t tt_count_classes(const tt_term_entry *entries, size_t n,

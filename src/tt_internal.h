@@ -73,6 +73,19 @@ static inline size_t tti_token_slot(const uint64_t key[3], size_t len, unsigned 
 /* Whether the SSE2 paths are used (src/simd.c, tt_simd()). */
 extern int tti_use_simd;
 
+/* Counting many documents into one table (a running total): like
+ * tt_counter_count, but hits may stay held in the counter's cache between
+ * calls, so the table is up to date only after tti_counter_flush. Every
+ * call until that flush must name the same table. On a failure the held
+ * hits are dropped (the caller discards or fails the table anyway). */
+struct tt_counter;
+struct tt_blocks;
+struct tt_termtable;
+struct tt_doc_stats;
+tt_status tti_counter_count_held(struct tt_counter *c, const struct tt_blocks *blocks,
+                                 struct tt_termtable *table, struct tt_doc_stats *stats);
+tt_status tti_counter_flush(struct tt_counter *c, struct tt_termtable *table);
+
 /* A text compiled into the library by tools/embed.c (stop-word lists,
  * lexicons); each generated table ends with a { NULL, NULL } entry. */
 struct tti_embedded {

@@ -432,6 +432,67 @@ static void test_invariants_and_threads(void **state)
     free(b);
 }
 
+/* The running total of --total-only (hits held in each worker's token
+ * cache until it ends) equals the '*' table of --total (each document's
+ * own table, merged), with -j 1 and -j 2, on documents whose vocabulary is
+ * far larger than the cache (ways evicted while holding hits). */
+static void test_total_only_equals_merged_tables(void **state)
+{
+    (void)state;
+    char args[1024], dir[512];
+    path_in(dir, sizeof dir, "bigvocab");
+    mkdir(dir, 0755);
+    uint64_t x = 7;
+    size_t cap = 600000;
+    char *text = malloc(cap);
+    assert_non_null(text);
+    for (int d = 0; d < 5; d++) {
+        size_t n = 0;
+        while (n + 40 < cap) {
+            x = x * 6364136223846793005ULL + 1442695040888963407ULL;
+            double u = (double)(x >> 11) / 9007199254740992.0;
+            uint64_t w = (uint64_t)(50000.0 * u * u * u) * 0x9E3779B97F4A7C15ULL;
+            size_t len = 1 + (size_t)(w >> 60);
+            for (size_t k = 0; k < len; k++) {
+                char ch = (char)('a' + (w >> (k * 3)) % 26);
+                text[n++] = (k == 0 && (w >> 58 & 3) == 1) ? (char)(ch - 32) : ch;
+            }
+            text[n++] = (x >> 40) % 11 ? ' ' : '\n';
+        }
+        char name[64];
+        snprintf(name, sizeof name, "bigvocab/doc%d.txt", d);
+        write_file(name, text, n);
+    }
+    free(text);
+    /* the '*' rows of --total, in the layout of --total-only */
+    snprintf(args, sizeof args, "count --total --quiet -j 1 %s", dir);
+    assert_int_equal(run(args), 0);
+    char *all = out_text();
+    size_t cap2 = strlen(all) + 1, m = 0;
+    char *want = malloc(cap2);
+    assert_non_null(want);
+    for (char *line = all; *line;) {
+        char *eol = strchr(line, '\n');
+        size_t ll = eol ? (size_t)(eol - line) + 1 : strlen(line);
+        if (!strncmp(line, "document\t", 9) || !strncmp(line, "*\t", 2)) {
+            memcpy(want + m, line, ll);
+            m += ll;
+        }
+        line += ll;
+    }
+    want[m] = '\0';
+    assert_true(m > 100000);
+    for (int j = 1; j <= 2; j++) {
+        snprintf(args, sizeof args, "count --total-only --quiet -j %d %s", j, dir);
+        assert_int_equal(run(args), 0);
+        char *got = out_text();
+        assert_string_equal(got, want);
+        free(got);
+    }
+    free(want);
+    free(all);
+}
+
 static void test_usage_errors(void **state)
 {
     (void)state;
@@ -460,6 +521,7 @@ int main(void)
         cmocka_unit_test(test_unreadable),
         cmocka_unit_test(test_odd_inputs),
         cmocka_unit_test(test_invariants_and_threads),
+        cmocka_unit_test(test_total_only_equals_merged_tables),
         cmocka_unit_test(test_usage_errors),
     };
     return cmocka_run_group_tests(tests, setup, teardown);

@@ -353,6 +353,104 @@ static void test_caches_match_slow_path(void **state)
     tt_termtable_free(stop);
 }
 
+/* ---- pending hits in the ASCII cache ---- */
+
+/* A text of n tokens drawn from a vocabulary of vocab random ASCII words
+ * (1 to 16 letters, some capitalised or upper-case, stop-words among
+ * them), skewed so that a few words are common and most are rare: far more
+ * words than the ASCII cache has ways, so ways holding pending hits are
+ * evicted all the time. A fixed seed; an LCG (Knuth's MMIX constants). */
+static void zipfish_text(tt_buf *b, size_t n, size_t vocab, uint64_t seed)
+{
+    uint64_t x = seed;
+#define NEXT() (x = x * 6364136223846793005ULL + 1442695040888963407ULL, x >> 33)
+    static const char *stops[] = { "the", "The", "of", "and", "A", "in" };
+    for (size_t i = 0; i < n; i++) {
+        double u = (double)NEXT() / 2147483648.0;
+        size_t w = (size_t)((double)vocab * u * u * u); /* skewed to small ids */
+        if (w < 6) {
+            assert_int_equal(tt_buf_append(b, stops[w], strlen(stops[w])), TT_OK);
+        } else {
+            uint64_t y = w * 0x9E3779B97F4A7C15ULL;
+            size_t len = 1 + (size_t)(y >> 60);
+            int casing = (int)((y >> 56) & 3);
+            for (size_t k = 0; k < len; k++) {
+                char ch = (char)('a' + (y >> (k * 3 % 50)) % 26);
+                if (casing == 1 || (casing == 2 && k == 0))
+                    ch = (char)(ch - 32);
+                assert_int_equal(tt_buf_putc(b, ch), TT_OK);
+            }
+        }
+        assert_int_equal(tt_buf_putc(b, NEXT() % 13 ? ' ' : '\n'), TT_OK);
+    }
+#undef NEXT
+}
+
+static int fail_allocs; /* allocations left before the test allocator fails */
+static void *failing_malloc(size_t n) { return fail_allocs-- > 0 ? malloc(n) : NULL; }
+static void *failing_realloc(void *p, size_t n) { return fail_allocs-- > 0 ? realloc(p, n) : NULL; }
+
+/* Hits held in the cache reach the table: with ways evicted while holding
+ * hits, a counter reused for a second table (nothing of the first leaks
+ * into it), and after a failed count (out of memory while entering a term:
+ * the held hits are dropped with that table, the next table is exact). The
+ * reference is the slow path above. */
+static void test_pending_hits(void **state)
+{
+    (void)state;
+    tt_termtable *stop = stop_set();
+    tt_count_options o;
+    tt_count_options_init(&o);
+    o.stopwords = stop;
+    tt_counter *c = tt_counter_new(&o);
+    assert_non_null(c);
+    tt_buf one, two;
+    tt_buf_init(&one, 0);
+    tt_buf_init(&two, 0);
+    zipfish_text(&one, 300000, 60000, 1);
+    zipfish_text(&two, 200000, 40000, 2);
+    for (int round = 0; round < 2; round++) {
+        const tt_buf *t = round ? &two : &one;
+        tt_termtable *ref = tt_termtable_new(), *got = tt_termtable_new();
+        uint64_t stopwords = 0, short_words = 0;
+        slow_path(t->data, t->len, stop, 1, ref, &stopwords, &short_words);
+        assert_true(tt_termtable_distinct(ref) > 20000); /* many more than the cache's ways */
+        tt_doc_stats st;
+        memset(&st, 0, sizeof st);
+        assert_int_equal(tt_counter_count_text(c, t->data, t->len, got, &st), TT_OK);
+        assert_same_table(got, ref);
+        assert_int_equal(st.terms_kept, tt_termtable_total(ref));
+        assert_int_equal(st.stopwords, stopwords);
+        tt_termtable_free(got);
+        tt_termtable_free(ref);
+    }
+
+    /* A count that runs out of memory part-way, then the second text again. */
+    tt_termtable *failed = tt_termtable_new();
+    tt_doc_stats st;
+    memset(&st, 0, sizeof st);
+    static const tt_allocator failing = { failing_malloc, failing_realloc, free };
+    fail_allocs = 3;
+    tt_set_allocator(&failing);
+    tt_status s = tt_counter_count_text(c, one.data, one.len, failed, &st);
+    tt_set_allocator(NULL);
+    assert_int_equal(s, TT_ENOMEM);
+    tt_termtable_free(failed);
+    tt_termtable *ref = tt_termtable_new(), *got = tt_termtable_new();
+    uint64_t stopwords = 0, short_words = 0;
+    slow_path(two.data, two.len, stop, 1, ref, &stopwords, &short_words);
+    memset(&st, 0, sizeof st);
+    assert_int_equal(tt_counter_count_text(c, two.data, two.len, got, &st), TT_OK);
+    assert_same_table(got, ref);
+    tt_termtable_free(got);
+    tt_termtable_free(ref);
+
+    tt_counter_free(c);
+    tt_buf_release(&one);
+    tt_buf_release(&two);
+    tt_termtable_free(stop);
+}
+
 static void test_bad_options(void **state)
 {
     (void)state;
@@ -374,6 +472,7 @@ int main(void)
         cmocka_unit_test(test_min_length_and_stem),
         cmocka_unit_test(test_classes),
         cmocka_unit_test(test_caches_match_slow_path),
+        cmocka_unit_test(test_pending_hits),
         cmocka_unit_test(test_bad_options),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
