@@ -6,8 +6,9 @@
  * buffers grow to the longest term seen and are reused. Most tokens skip
  * the stages up to the table: a token cache (below) remembers what each
  * recent token became. On the benchmark's filing-like text about 3% of
- * tokens miss it, and the loop costs some 85 instructions a token besides
- * the tokenizer and the table (callgrind).
+ * tokens miss it, and the loop costs some 60 instructions a token besides
+ * the tokenizer (callgrind); a kept token's count waits in the cache (see
+ * "Pending counts").
  *
  * N-grams: a window of the last ngram_max kept tokens of the current
  * sentence (each with its final term form and whether it may start or end an
@@ -59,17 +60,18 @@
  * all of them with stemming): direct-mapped, one 64-byte entry per line,
  * keyed by the raw bytes, the term stored beside them.
  *
- * Pending counts: a hit of a kept term in the ASCII cache does not touch the
- * term table; it adds one to the way's `pending`, and the set goes on a dirty
- * list the first time. The table is brought up to date from the dirty list
- * at the end of each call that counts (tt_counter_count, _count_text), when
- * a way with pending hits is evicted, and when the list fills. So the table
- * sees one add per distinct term of a call instead of one per token: its
- * slots (spread over megabytes for a large vocabulary, a cache miss each)
- * and the term's bytes are not read in the loop, only the cache's line,
- * which the lookup has just read. Between calls every pending is 0, so a
- * counter can count into another table next. On an error the pending hits
- * are dropped with the call's table, which the caller discards. */
+ * Pending counts: a hit of a kept term in either cache does not touch the
+ * term table; it adds one to the way's (the entry's) `pending`, and the set
+ * (entry) goes on a dirty list the first time. The table is brought up to
+ * date from the dirty lists at the end of each call that counts
+ * (tt_counter_count, _count_text; tti_counter_flush for a running total)
+ * and when a way or entry with pending hits is evicted. So the table sees
+ * one add per distinct term of a call instead of one per token: its slots
+ * (spread over megabytes for a large vocabulary, a cache miss each) and the
+ * term's bytes are not read in the loop, only the cache's line, which the
+ * lookup has just read. Between calls every pending is 0, so a counter can
+ * count into another table next. On an error the pending hits are dropped
+ * with the call's table, which the caller discards. */
 #define ASCII_BITS 13 /* 8192 sets of two ways: 512 KB */
 #define ASCII_RAW 16
 #define CACHE_BITS 12 /* 4096 entries: 256 KB */
@@ -77,9 +79,14 @@
 #define CACHE_STOP 1u
 #define CACHE_SHORT 2u
 #define CACHE_EMPTY 4u
-/* The dirty list holds the numbers of the sets that may hold pending hits,
- * each at most once (a byte per set says whether it is on the list). */
-#define DIRTY_CAP (1u << ASCII_BITS)
+/* A dirty list holds the numbers of the sets (entries, for the general
+ * cache) that may hold pending hits, each at most once (a byte per set says
+ * whether it is on the list). */
+typedef struct dirty_list {
+    uint32_t *id;
+    uint8_t *on;
+    size_t n;
+} dirty_list;
 
 typedef struct ascii_way {
     uint64_t key[2];  /* the token, ASCII-lowercased, zero-padded */
@@ -101,6 +108,7 @@ _Static_assert(ASCII_RAW == sizeof(((ascii_way *)0)->key), "an ASCII key is two 
 typedef struct cache_entry {
     uint64_t raw[CACHE_RAW / 8]; /* the raw token, zero-padded */
     uint64_t hash;               /* tti_termtable_hash(term) */
+    uint32_t pending;            /* hits not yet added to the table */
     uint8_t raw_len;             /* 0: unused entry */
     uint8_t term_len;
     uint8_t flags;
@@ -115,6 +123,7 @@ typedef struct resolved {
     size_t len;
     uint64_t hash;
     unsigned flags;
+    cache_entry *entry; /* the general cache's entry now holding the token, or NULL */
 } resolved;
 
 typedef struct window_slot {
@@ -136,10 +145,9 @@ struct tt_counter {
     void *cache_mem;    /* the allocation cache points into */
     ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
     void *ascii_mem;
-    uint32_t *dirty;    /* DIRTY_CAP set numbers with pending hits (maybe) */
-    uint8_t *on_dirty;  /* per set: 1 when on the dirty list */
-    size_t n_dirty;
-    tt_status fill_status; /* an error of ascii_fill, for count_block */
+    dirty_list dirty;   /* ASCII sets with pending hits (maybe) */
+    dirty_list gdirty;  /* general cache entries with pending hits (maybe) */
+    tt_status fill_status; /* a failure to add evicted hits, for count_block */
     resolved general;   /* the last answer of resolve_general */
 };
 
@@ -151,6 +159,33 @@ void tt_count_options_init(tt_count_options *o)
     o->keep_numbers = 0;
     o->min_length = 1;
     o->stopwords = NULL;
+}
+
+static tt_status dirty_init(dirty_list *d, size_t n)
+{
+    d->id = tt_calloc(n, sizeof *d->id);
+    d->on = tt_calloc(n, 1);
+    d->n = 0;
+    return d->id && d->on ? TT_OK : TT_ENOMEM;
+}
+
+/* Puts id on the list unless it is there. */
+static inline void dirty_mark(dirty_list *d, uint32_t id)
+{
+    if (!d->on[id]) {
+        d->on[id] = 1;
+        d->id[d->n++] = id;
+    }
+}
+
+/* Adds a general cache entry's pending hits to table. */
+static tt_status entry_flush(cache_entry *e, tt_termtable *table)
+{
+    if (!e->pending)
+        return TT_OK;
+    uint32_t n = e->pending;
+    e->pending = 0;
+    return tti_termtable_add_hashed(table, e->term, e->term_len, e->hash, n);
 }
 
 tt_counter *tt_counter_new(const tt_count_options *opt)
@@ -181,12 +216,14 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
             return NULL;
         }
         c->ascii = (ascii_set *)(((uintptr_t)c->ascii_mem + 63) & ~(uintptr_t)63);
-        c->dirty = tt_calloc(DIRTY_CAP, sizeof *c->dirty);
-        c->on_dirty = tt_calloc(DIRTY_CAP, 1);
-        if (!c->dirty || !c->on_dirty) {
+        if (dirty_init(&c->dirty, (size_t)1 << ASCII_BITS)) {
             tt_counter_free(c);
             return NULL;
         }
+    }
+    if (dirty_init(&c->gdirty, (size_t)1 << CACHE_BITS)) {
+        tt_counter_free(c);
+        return NULL;
     }
     if (opt->stem) {
         c->stemmer = tt_stemmer_new();
@@ -211,8 +248,10 @@ void tt_counter_free(tt_counter *c)
         tt_buf_release(&c->win[i].term);
     tt_free(c->cache_mem);
     tt_free(c->ascii_mem);
-    tt_free(c->dirty);
-    tt_free(c->on_dirty);
+    tt_free(c->dirty.id);
+    tt_free(c->dirty.on);
+    tt_free(c->gdirty.id);
+    tt_free(c->gdirty.on);
     tt_free(c);
 }
 
@@ -289,7 +328,7 @@ static unsigned classify(const tt_counter *c, const char *t, size_t n, uint64_t 
  * valid until the next token), the term's table hash, and CACHE_* flags.
  * TT_ELIMIT when normalization outgrows its buffer. */
 static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
-                                 tt_token_kind kind, resolved *out)
+                                 tt_token_kind kind, tt_termtable *table, resolved *out)
 {
     cache_entry *e = NULL;
     uint64_t key[CACHE_RAW / 8] = { 0, 0, 0 };
@@ -302,6 +341,7 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
             out->len = e->term_len;
             out->hash = e->hash;
             out->flags = e->flags;
+            out->entry = e;
             return TT_OK;
         }
     }
@@ -320,7 +360,13 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
         n = c->stemmed.len;
         h = tti_termtable_hash(t, n);
     }
+    out->entry = NULL;
     if (e && n <= CACHE_RAW) {
+        if ((s = entry_flush(e, table))) {
+            c->fill_status = s;
+            return s;
+        }
+        out->entry = e;
         memcpy(e->raw, key, sizeof key);
         e->raw_len = (uint8_t)len;
         e->term_len = (uint8_t)n;
@@ -456,13 +502,13 @@ static tt_status way_flush(ascii_way *w, tt_termtable *table)
 }
 
 /* Brings table up to date with every pending hit and empties the dirty
- * list; on failure (or with table NULL) drops the hits left. */
+ * lists; on failure (or with table NULL) drops the hits left. */
 static tt_status flush_pending(tt_counter *c, tt_termtable *table)
 {
     tt_status s = TT_OK;
-    for (size_t i = 0; i < c->n_dirty; i++) {
-        c->on_dirty[c->dirty[i]] = 0;
-        ascii_set *set = &c->ascii[c->dirty[i]];
+    for (size_t i = 0; i < c->dirty.n; i++) {
+        c->dirty.on[c->dirty.id[i]] = 0;
+        ascii_set *set = &c->ascii[c->dirty.id[i]];
         for (int j = 0; j < 2; j++) {
             if (!s && table)
                 s = way_flush(&set->way[j], table);
@@ -470,7 +516,16 @@ static tt_status flush_pending(tt_counter *c, tt_termtable *table)
                 set->way[j].pending = 0;
         }
     }
-    c->n_dirty = 0;
+    c->dirty.n = 0;
+    for (size_t i = 0; i < c->gdirty.n; i++) {
+        c->gdirty.on[c->gdirty.id[i]] = 0;
+        cache_entry *e = &c->cache[c->gdirty.id[i]];
+        if (!s && table)
+            s = entry_flush(e, table);
+        else
+            e->pending = 0;
+    }
+    c->gdirty.n = 0;
     return s;
 }
 
@@ -508,16 +563,12 @@ static ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
     return w;
 }
 
-/* The ASCII cache's way for a token of len 1..ASCII_RAW bytes (room bytes
- * readable from raw on), filled on a miss; NULL when the token is not for
- * this cache (not ASCII, or holding '`'). */
-static inline ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const char *raw,
-                                      size_t len, size_t room, tt_termtable *table)
+/* The way of set holding the lowercased key k of a token of len bytes,
+ * filled on a miss; NULL when the token holds '`' (or filling it failed:
+ * c->fill_status). */
+static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_t k[2],
+                                    size_t len, tt_termtable *table)
 {
-    uint64_t k[2];
-    if (!ascii_lower_key(raw, len, room, k))
-        return NULL;
-    ascii_set *set = &cache[ascii_slot(k, len)];
     ascii_way *w = &set->way[0];
     if (ascii_way_holds(w, k, len))
         return w;
@@ -530,20 +581,47 @@ static inline ascii_way *ascii_lookup(tt_counter *c, ascii_set *cache, const cha
     return ascii_fill(c, set, k, len, table);
 }
 
+/* Tokens are taken from the tokenizer BATCH at a time: each one's cache key
+ * and set are worked out and the set's line is prefetched, then the batch is
+ * counted in order. The lookups of a batch then wait for memory together
+ * instead of one after another. */
+#define BATCH 16
+
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
                              tt_termtable *table, tt_doc_stats *st)
 {
     tt_tokenizer tk;
-    tt_token tok;
     tt_status s;
     const int unigram_only = c->opt.ngram_max == 1;
     const int keep_numbers = c->opt.keep_numbers;
     ascii_set *const ascii = c->ascii;
+    tt_token toks[BATCH];
+    uint64_t keys[BATCH][2];
+    ascii_set *sets[BATCH]; /* NULL: not for the ASCII cache */
+    size_t n_toks = 0, next_tok = 0;
 
     tt_tokenizer_init(&tk, text, len);
     c->win_len = 0;
     c->win_head = 0;
-    while (tt_tokenizer_next(&tk, &tok)) {
+    for (;;) {
+        if (next_tok == n_toks) {
+            n_toks = next_tok = 0;
+            while (n_toks < BATCH && tt_tokenizer_next(&tk, &toks[n_toks])) {
+                const tt_token *t = &toks[n_toks];
+                sets[n_toks] = NULL;
+                if (ascii && t->len - 1 < ASCII_RAW &&
+                    (keep_numbers || t->kind != TT_TOKEN_NUMBER) &&
+                    ascii_lower_key(text + t->off, t->len, len - t->off, keys[n_toks])) {
+                    sets[n_toks] = &ascii[ascii_slot(keys[n_toks], t->len)];
+                    __builtin_prefetch(sets[n_toks]);
+                }
+                n_toks++;
+            }
+            if (!n_toks)
+                break;
+        }
+        const size_t ti = next_tok++;
+        const tt_token tok = toks[ti];
         st->words_read++;
         if (tok.sentence_start) {
             st->sentences++;
@@ -565,19 +643,15 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         uint64_t h;
         unsigned flags;
         ascii_way *w = NULL;
-        if (ascii && tok.len - 1 < ASCII_RAW)
-            w = ascii_lookup(c, ascii, text + tok.off, tok.len, len - tok.off, table);
+        if (sets[ti])
+            w = ascii_find(c, sets[ti], keys[ti], tok.len, table);
         if (w) {
             if (!w->flags && unigram_only) {
                 /* A kept term: a pending hit (see the cache's comment). */
                 st->terms_kept++;
-                if (w->pending++ == 0) {
-                    uint32_t set = (uint32_t)(w - &ascii[0].way[0]) / 2;
-                    if (!c->on_dirty[set]) {
-                        c->on_dirty[set] = 1;
-                        c->dirty[c->n_dirty++] = set;
-                    }
-                } else if (w->pending == UINT32_MAX && (s = way_flush(w, table))) {
+                if (w->pending++ == 0)
+                    dirty_mark(&c->dirty, (uint32_t)(w - &ascii[0].way[0]) / 2);
+                else if (w->pending == UINT32_MAX && (s = way_flush(w, table))) {
                     return s;
                 }
                 continue;
@@ -592,8 +666,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                 c->fill_status = TT_OK;
                 return s;
             }
-            s = resolve_general(c, text + tok.off, tok.len, tok.kind, &c->general);
-            if (s == TT_ELIMIT) {
+            s = resolve_general(c, text + tok.off, tok.len, tok.kind, table, &c->general);
+            if (s == TT_ELIMIT && !c->fill_status) {
                 /* NFKC can expand a token many times over (one U+FDFA
                  * becomes 18 characters); a term past the buffer cap is
                  * skipped like an overlong token, never allowed to fail
@@ -603,8 +677,19 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                 c->win_head = 0;
                 continue;
             }
-            if (s)
+            if (s) {
+                c->fill_status = TT_OK;
                 return s;
+            }
+            cache_entry *e = c->general.entry;
+            if (e && !e->flags && unigram_only) {
+                st->terms_kept++;
+                if (e->pending++ == 0)
+                    dirty_mark(&c->gdirty, (uint32_t)(e - c->cache));
+                else if (e->pending == UINT32_MAX && (s = entry_flush(e, table)))
+                    return s;
+                continue;
+            }
             term = c->general.term;
             tlen = c->general.len;
             h = c->general.hash;

@@ -504,7 +504,7 @@ static size_t hyphen_len(const unsigned char *s, size_t n)
  * ASCII letters (and c is no MidNum) or both digits (and c is no
  * MidLetter); the run then goes on after c. Returns the end, or 0 to leave
  * the decision to segment_end(). */
-static size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, size_t len, size_t p,
+static inline size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, size_t len, size_t p,
                              unsigned *seen)
 {
     if (!tti_wb_ascii_run[s[p]])
@@ -556,6 +556,47 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
 
     while (p < len) {
         unsigned b = s[p];
+        if (tti_is_ascii_alpha((int)b)) {
+            /* Fastest path, the commonest token: a run of [A-Za-z0-9_]
+             * from a letter up to a space or LF, or up to one ASCII
+             * punctuation character and a space or LF ("rose, ", "year.\n").
+             * A space or LF joins
+             * nothing to the run (it is no Mid* character, WB6-WB12, and no
+             * hyphen), and a Mid* character joins only when a letter or
+             * digit follows it; so the token is the run, a word, as
+             * ascii_word_end and the hyphen loop below would find. The
+             * punctuation (not '-', which may join, nor CR) is a segment
+             * alone, a sentence end when a terminal; an LF is a segment alone
+             * (WB3a), and so is a single space before an ASCII byte (WB3d
+             * joins spaces only), neither a terminal, so the walk goes on
+             * after it. */
+            unsigned i = chunk_at(t, p);
+            uint64_t past = ~t->m_word >> i;
+            size_t e = p + (past ? (size_t)__builtin_ctzll(past) : 64 - i), after = 0;
+            if (past && e + 1 < len && e - p <= TT_LIMIT_TOKEN_BYTES) {
+                unsigned c = s[e], d = s[e + 1];
+                if (c == ' ' || c == '\n')
+                    after = e + 1;
+                else if ((d == ' ' || d == '\n') && c < 0x80 && c != '-' && c != '\r')
+                    after = e + 2; /* c is no [A-Za-z0-9_]: the run ended before it */
+            }
+            if (after) {
+                tok->off = p;
+                tok->len = e - p;
+                tok->kind = TT_TOKEN_WORD;
+                tok->sentence_start = t->at_sentence_start;
+                if (tok->sentence_start && t->pending_suffix && b >= 'a')
+                    tok->sentence_start = 0; /* after "Inc." a lower-case word */
+                t->pending_suffix = 0;
+                t->at_sentence_start = 0;
+                t->prev_off = p;
+                t->prev_end = e;
+                if (after == e + 2 && (tti_wb_stage2[s[e]] & TTI_WB_TERMINAL))
+                    terminal(t, s, e, e + 1);
+                t->pos = after < len && s[after] < 0x80 ? after : after - 1;
+                return 1;
+            }
+        }
         if (b < 0x80 && !tti_wb_ascii_run[b] && b != '\r') {
             /* Fast path: ASCII spaces and punctuation. An ASCII character
              * that is not a letter, digit, '_' or CR starts no rule that
@@ -628,7 +669,9 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
             unsigned fseen;
             if (!h || p + h >= len)
                 break;
-            size_t fend = segment_end(s, len, p + h, &fseen);
+            size_t fend = s[p + h] < 0x80 ? ascii_word_end(t, s, len, p + h, &fseen) : 0;
+            if (!fend)
+                fend = segment_end(s, len, p + h, &fseen);
             if (!(fseen & SEEN_TOKEN)) {
                 ends_sentence = (fseen & SEEN_TERMINAL) != 0;
                 t->pos = fend;
