@@ -581,10 +581,10 @@ static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_
     return ascii_fill(c, set, k, len, table);
 }
 
-/* Tokens are taken from the tokenizer BATCH at a time: each one's cache key
- * and set are worked out and the set's line is prefetched, then the batch is
- * counted in order. The lookups of a batch then wait for memory together
- * instead of one after another. */
+/* Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
+ * each one's cache key and set are worked out and the set's line is
+ * prefetched, then the batch is counted in order. The lookups of a batch
+ * then wait for memory together instead of one after another. */
 #define BATCH 16
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
@@ -605,30 +605,30 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
     c->win_head = 0;
     for (;;) {
         if (next_tok == n_toks) {
-            n_toks = next_tok = 0;
-            while (n_toks < BATCH && tt_tokenizer_next(&tk, &toks[n_toks])) {
-                const tt_token *t = &toks[n_toks];
-                sets[n_toks] = NULL;
-                if (ascii && t->len - 1 < ASCII_RAW &&
-                    (keep_numbers || t->kind != TT_TOKEN_NUMBER) &&
-                    ascii_lower_key(text + t->off, t->len, len - t->off, keys[n_toks])) {
-                    sets[n_toks] = &ascii[ascii_slot(keys[n_toks], t->len)];
-                    __builtin_prefetch(sets[n_toks]);
-                }
-                n_toks++;
-            }
+            n_toks = tt_tokenizer_fill(&tk, toks, BATCH);
+            next_tok = 0;
             if (!n_toks)
                 break;
+            for (size_t k = 0; k < n_toks; k++) {
+                const tt_token *t = &toks[k];
+                sets[k] = NULL;
+                if (ascii && t->len - 1 < ASCII_RAW &&
+                    (keep_numbers || t->kind != TT_TOKEN_NUMBER) &&
+                    ascii_lower_key(text + t->off, t->len, len - t->off, keys[k])) {
+                    sets[k] = &ascii[ascii_slot(keys[k], t->len)];
+                    __builtin_prefetch(sets[k]);
+                }
+            }
         }
         const size_t ti = next_tok++;
-        const tt_token tok = toks[ti];
+        const tt_token *tok = &toks[ti];
         st->words_read++;
-        if (tok.sentence_start) {
+        if (tok->sentence_start) {
             st->sentences++;
             c->win_len = 0;
             c->win_head = 0;
         }
-        if (tok.kind == TT_TOKEN_NUMBER) {
+        if (tok->kind == TT_TOKEN_NUMBER) {
             st->numbers++;
             if (!keep_numbers) {
                 c->win_len = 0;
@@ -644,7 +644,7 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         unsigned flags;
         ascii_way *w = NULL;
         if (sets[ti])
-            w = ascii_find(c, sets[ti], keys[ti], tok.len, table);
+            w = ascii_find(c, sets[ti], keys[ti], tok->len, table);
         if (w) {
             if (!w->flags && unigram_only) {
                 /* A kept term: a pending hit (see the cache's comment). */
@@ -666,7 +666,7 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                 c->fill_status = TT_OK;
                 return s;
             }
-            s = resolve_general(c, text + tok.off, tok.len, tok.kind, table, &c->general);
+            s = resolve_general(c, text + tok->off, tok->len, tok->kind, table, &c->general);
             if (s == TT_ELIMIT && !c->fill_status) {
                 /* NFKC can expand a token many times over (one U+FDFA
                  * becomes 18 characters); a term past the buffer cap is

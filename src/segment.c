@@ -49,6 +49,8 @@
 #include <emmintrin.h>
 #endif
 
+#include <pthread.h>
+
 #include "tt_internal.h"
 
 #include "termtide/segment.h"
@@ -439,6 +441,27 @@ static const abbrev company_suffix[] = { AB("inc"), AB("corp"), AB("co"), AB("lt
 #undef AB
 #define ABBREV_MAX 6 /* the longest entry */
 
+/* A first filter before the lists are walked: per length, a bit for each
+ * letter some entry of that length starts with. Made once per process. */
+static uint32_t abbrev_first[ABBREV_MAX + 1];
+static pthread_once_t abbrev_once = PTHREAD_ONCE_INIT;
+
+static void abbrev_first_init(void)
+{
+    for (size_t i = 0; i < sizeof never_end / sizeof *never_end; i++)
+        abbrev_first[never_end[i].n] |= 1u << (never_end[i].s[0] - 'a');
+    for (size_t i = 0; i < sizeof company_suffix / sizeof *company_suffix; i++)
+        abbrev_first[company_suffix[i].n] |= 1u << (company_suffix[i].s[0] - 'a');
+}
+
+/* Whether some entry has n letters and starts with w[0] (either case). */
+static int maybe_abbrev(const unsigned char *w, size_t n)
+{
+    pthread_once(&abbrev_once, abbrev_first_init);
+    unsigned first = (unsigned)(w[0] | 32u) - 'a';
+    return first < 26 && ((abbrev_first[n] >> first) & 1u);
+}
+
 static int in_list(const unsigned char *w, size_t n, const abbrev *list, size_t count)
 {
     unsigned char first = (unsigned char)(w[0] | (w[0] >= 'A' && w[0] <= 'Z' ? 32 : 0));
@@ -466,8 +489,13 @@ static void terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_
             t->at_sentence_start = 1;
             return;
         }
-        if ((n == 1 && w[0] >= 'A' && w[0] <= 'Z') ||
-            in_list(w, n, never_end, sizeof never_end / sizeof *never_end))
+        if (n == 1 && w[0] >= 'A' && w[0] <= 'Z')
+            return;
+        if (!maybe_abbrev(w, n)) {
+            t->at_sentence_start = 1;
+            return;
+        }
+        if (in_list(w, n, never_end, sizeof never_end / sizeof *never_end))
             return;
         if (in_list(w, n, company_suffix, sizeof company_suffix / sizeof *company_suffix))
             t->pending_suffix = 1;
@@ -549,6 +577,121 @@ static inline size_t ascii_word_end(tt_tokenizer *t, const unsigned char *s, siz
     return q;
 }
 
+static inline int is_mid(unsigned prop)
+{
+    return prop == TTI_WB_MIDLETTER || prop == TTI_WB_MIDNUM || prop == TTI_WB_MIDNUMLET ||
+           prop == TTI_WB_SINGLE_QUOTE;
+}
+
+/* The fastest path, for the commonest tokens: runs of [A-Za-z0-9_] from p
+ * (whose byte is one), joined across Mid* characters followed by an ASCII
+ * letter or digit as ascii_word_end joins them ("U.S", "1,200.50",
+ * "company\u2019s"), up to a character that cannot join and is no hyphen
+ * (a hyphen may join the next part): the token is then the one
+ * ascii_word_end and the hyphen loop of tt_tokenizer_next find. After it, a
+ * space or LF, or one ASCII punctuation character (not CR) and a space or
+ * LF, are stepped over too ("rose, ", "year.\n"): an LF is a segment alone
+ * (WB3a), so is a single space before an ASCII byte (WB3d joins spaces
+ * only) and so is the punctuation, and only a terminal among them matters;
+ * otherwise the walk goes on at the token's end. Anything else (a Mid*
+ * character before non-ASCII, a mark, a hyphen, an over-long run) returns
+ * 0, having changed nothing but the chunk masks, and the full walk
+ * decides. */
+__attribute__((always_inline)) static inline int
+fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t p,
+           tt_token *restrict tok)
+{
+    size_t q = p, e;
+    unsigned c;
+    for (;;) {
+        unsigned i = chunk_at(t, q);
+        uint64_t past = ~t->m_word >> i;
+        if (!past) { /* the run goes on into the next chunk */
+            q += 64 - i;
+            if (q - p > TT_LIMIT_TOKEN_BYTES)
+                return 0;
+            continue;
+        }
+        e = q + (size_t)__builtin_ctzll(past);
+        if (e + 1 >= len || e - p > TT_LIMIT_TOKEN_BYTES)
+            return 0;
+        c = s[e];
+        if (c == ' ' || c == '\n')
+            break;
+        size_t n = 1;
+        unsigned prop;
+        if (c < 0x80) {
+            if (c == '-')
+                return 0;
+            prop = tti_wb_stage2[c] & TTI_WB_PROP_MASK;
+        } else {
+            if (hyphen_len(s + e, len - e))
+                return 0;
+            unsigned cls = class_at(s + e, len - e, &n);
+            if (cls == TTI_WB_OTHER)
+                break;
+            prop = cls & TTI_WB_PROP_MASK;
+            if (!is_mid(prop))
+                return 0;
+        }
+        if (!is_mid(prop))
+            break;
+        if (e + n >= len)
+            return 0;
+        unsigned next = s[e + n], last = s[e - 1];
+        if (next >= 0x80)
+            return 0;
+        int letters = tti_is_ascii_alpha((int)last) && tti_is_ascii_alpha((int)next) &&
+                      prop != TTI_WB_MIDNUM;
+        int digits = tti_is_ascii_digit((int)last) && tti_is_ascii_digit((int)next) &&
+                     prop != TTI_WB_MIDLETTER;
+        if (!letters && !digits)
+            break;
+        q = e + n;
+    }
+    unsigned b = s[p];
+    tt_token_kind kind = TT_TOKEN_WORD;
+    if (!tti_is_ascii_alpha((int)b)) {
+        /* a word if any letter, a number if digits only, else ("__") no
+         * token: the full walk */
+        unsigned f = 0;
+        for (size_t k = p; k < e; k++)
+            f |= tti_wb_ascii_run[s[k]];
+        if (f & TTI_WB_LETTER)
+            kind = TT_TOKEN_WORD;
+        else if (f & TTI_WB_RUN_DIGIT)
+            kind = TT_TOKEN_NUMBER;
+        else
+            return 0;
+    }
+    tok->off = p;
+    tok->len = e - p;
+    tok->kind = kind;
+    tok->sentence_start = t->at_sentence_start;
+    /* after "Inc." a lower-case word or a number goes on the sentence */
+    if (tok->sentence_start && t->pending_suffix &&
+        ((b >= 'a' && b <= 'z') || (b >= '0' && b <= '9')))
+        tok->sentence_start = 0;
+    t->pending_suffix = 0;
+    t->at_sentence_start = 0;
+    t->prev_off = p;
+    t->prev_end = e;
+    size_t after;
+    unsigned d = s[e + 1];
+    if (c == ' ' || c == '\n') {
+        after = e + 1;
+    } else if ((d == ' ' || d == '\n') && c < 0x80 && c != '\r') {
+        after = e + 2;
+        if (tti_wb_stage2[c] & TTI_WB_TERMINAL)
+            terminal(t, s, e, e + 1);
+    } else {
+        t->pos = e;
+        return 1;
+    }
+    t->pos = after < len && s[after] < 0x80 ? after : after - 1;
+    return 1;
+}
+
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
 {
     const unsigned char *s = (const unsigned char *)t->text;
@@ -556,47 +699,8 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
 
     while (p < len) {
         unsigned b = s[p];
-        if (tti_is_ascii_alpha((int)b)) {
-            /* Fastest path, the commonest token: a run of [A-Za-z0-9_]
-             * from a letter up to a space or LF, or up to one ASCII
-             * punctuation character and a space or LF ("rose, ", "year.\n").
-             * A space or LF joins
-             * nothing to the run (it is no Mid* character, WB6-WB12, and no
-             * hyphen), and a Mid* character joins only when a letter or
-             * digit follows it; so the token is the run, a word, as
-             * ascii_word_end and the hyphen loop below would find. The
-             * punctuation (not '-', which may join, nor CR) is a segment
-             * alone, a sentence end when a terminal; an LF is a segment alone
-             * (WB3a), and so is a single space before an ASCII byte (WB3d
-             * joins spaces only), neither a terminal, so the walk goes on
-             * after it. */
-            unsigned i = chunk_at(t, p);
-            uint64_t past = ~t->m_word >> i;
-            size_t e = p + (past ? (size_t)__builtin_ctzll(past) : 64 - i), after = 0;
-            if (past && e + 1 < len && e - p <= TT_LIMIT_TOKEN_BYTES) {
-                unsigned c = s[e], d = s[e + 1];
-                if (c == ' ' || c == '\n')
-                    after = e + 1;
-                else if ((d == ' ' || d == '\n') && c < 0x80 && c != '-' && c != '\r')
-                    after = e + 2; /* c is no [A-Za-z0-9_]: the run ended before it */
-            }
-            if (after) {
-                tok->off = p;
-                tok->len = e - p;
-                tok->kind = TT_TOKEN_WORD;
-                tok->sentence_start = t->at_sentence_start;
-                if (tok->sentence_start && t->pending_suffix && b >= 'a')
-                    tok->sentence_start = 0; /* after "Inc." a lower-case word */
-                t->pending_suffix = 0;
-                t->at_sentence_start = 0;
-                t->prev_off = p;
-                t->prev_end = e;
-                if (after == e + 2 && (tti_wb_stage2[s[e]] & TTI_WB_TERMINAL))
-                    terminal(t, s, e, e + 1);
-                t->pos = after < len && s[after] < 0x80 ? after : after - 1;
-                return 1;
-            }
-        }
+        if (tti_wb_ascii_run[b] && fast_token(t, s, len, p, tok))
+            return 1;
         if (b < 0x80 && !tti_wb_ascii_run[b] && b != '\r') {
             /* Fast path: ASCII spaces and punctuation. An ASCII character
              * that is not a letter, digit, '_' or CR starts no rule that
@@ -707,4 +811,21 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
     }
     t->pos = len;
     return 0;
+}
+
+size_t tt_tokenizer_fill(tt_tokenizer *restrict t, tt_token *restrict toks, size_t max)
+{
+    const unsigned char *s = (const unsigned char *)t->text;
+    size_t len = t->len, n = 0;
+    while (n < max) {
+        size_t p = t->pos;
+        if (p < len && tti_wb_ascii_run[s[p]] && fast_token(t, s, len, p, &toks[n])) {
+            n++;
+            continue;
+        }
+        if (!tt_tokenizer_next(t, &toks[n]))
+            break;
+        n++;
+    }
+    return n;
 }

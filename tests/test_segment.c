@@ -317,13 +317,13 @@ static void test_views(void **state)
  * Sentence_Terminal from the Unicode Character Database). */
 typedef struct rnd_char {
     const char *utf8;
-    int word;     /* letter or digit */
+    int word;     /* 1 letter, 2 digit, 0 neither */
     int terminal; /* ends a sentence */
 } rnd_char;
 
 static const rnd_char rnd_alphabet[] = {
     { "a", 1, 0 }, { "Z", 1, 0 }, { "q", 1, 0 },
-    { "Operating_income2025Segments", 1, 0 }, /* a long ASCII run */
+    { "Operating_income2025Segments", 3, 0 }, /* a long ASCII run */
     { "   ", 0, 0 },
     { "\xC3\xA9", 1, 0 },          /* U+00E9 e acute, Ll */
     { "\xCF\x89", 1, 0 },          /* U+03C9 omega, Ll */
@@ -331,8 +331,8 @@ static const rnd_char rnd_alphabet[] = {
     { "\xE3\x82\xAB", 1, 0 },      /* U+30AB katakana ka */
     { "\xE3\x81\xAE", 1, 0 },      /* U+306E hiragana no, Lo */
     { "\xE4\xBC\x9A", 1, 0 },      /* U+4F1A ideograph, Lo */
-    { "0", 1, 0 }, { "7", 1, 0 },
-    { "\xD9\xA1", 1, 0 },          /* U+0661 Arabic-Indic one, Nd */
+    { "0", 2, 0 }, { "7", 2, 0 }, { "1,250", 2, 0 }, { "3.5", 2, 0 },
+    { "\xD9\xA1", 2, 0 },          /* U+0661 Arabic-Indic one, Nd */
     { " ", 0, 0 }, { " ", 0, 0 }, { "\t", 0, 0 }, { "\n", 0, 0 }, { "\r", 0, 0 },
     { ".", 0, 1 }, { "!", 0, 1 }, { "?", 0, 1 },
     { "\xE2\x80\xA6", 0, 1 },      /* U+2026 ellipsis */
@@ -487,6 +487,7 @@ static void random_against_reference(int cases, size_t maxch, uint32_t x)
                     next_word |= word_at[q];
                 if (!next_word)
                     break;
+                word |= next_word;
                 end = seg_b[j + 1];
                 j += 2;
             }
@@ -494,30 +495,46 @@ static void random_against_reference(int cases, size_t maxch, uint32_t x)
                                        (text[start] >= '0' && text[start] <= '9')))
                 at_start = 0;
             suffix = 0;
-            o += (size_t)snprintf(want + o, sizeof want - o, "%s%s%.*s", o ? " " : "",
-                                  at_start ? "^" : "", (int)(end - start), text + start);
+            /* a number holds no letter (segment.h); '#' marks one */
+            o += (size_t)snprintf(want + o, sizeof want - o, "%s%s%s%.*s", o ? " " : "",
+                                  at_start ? "^" : "", (word & 1) ? "" : "#",
+                                  (int)(end - start), text + start);
             at_start = 0;
             prev_a = start;
             prev_b = end;
             i = j;
         }
 
-        /* The tokenizer (kinds are checked elsewhere; here the spans and
-         * sentence starts). */
-        tt_tokenizer t;
-        tt_token tok;
-        o = 0;
-        got[0] = '\0';
-        tt_tokenizer_init(&t, text, len);
-        while (tt_tokenizer_next(&t, &tok))
-            o += (size_t)snprintf(got + o, sizeof got - o, "%s%s%.*s", o ? " " : "",
-                                  tok.sentence_start ? "^" : "", (int)tok.len, text + tok.off);
-        if (strcmp(want, got) != 0) {
-            print_error("case %d, text (%zu bytes):", k, len);
-            for (size_t q = 0; q < len; q++)
-                print_error(" %02X", (unsigned char)text[q]);
-            print_error("\n  want: %s\n  got:  %s\n", want, got);
-            fail();
+        /* The tokenizer: the spans, kinds and sentence starts, a token at
+         * a time and in batches of 1 to 5 and 16 (tt_tokenizer_fill). */
+        for (int way = 0; way < 2; way++) {
+            tt_tokenizer t;
+            tt_token toks[16];
+            size_t batch = way ? 1 + (size_t)k % 6 : 1;
+            if (batch == 6)
+                batch = 16;
+            o = 0;
+            got[0] = '\0';
+            tt_tokenizer_init(&t, text, len);
+            for (;;) {
+                size_t n = way ? tt_tokenizer_fill(&t, toks, batch)
+                               : (size_t)tt_tokenizer_next(&t, &toks[0]);
+                for (size_t q = 0; q < n; q++)
+                    o += (size_t)snprintf(got + o, sizeof got - o, "%s%s%s%.*s", o ? " " : "",
+                                          toks[q].sentence_start ? "^" : "",
+                                          toks[q].kind == TT_TOKEN_NUMBER ? "#" : "",
+                                          (int)toks[q].len, text + toks[q].off);
+                if (n < batch)
+                    break;
+            }
+            if (strcmp(want, got) != 0) {
+                print_error("case %d (%s), text (%zu bytes):", k,
+                            way ? "tt_tokenizer_fill" : "tt_tokenizer_next", len);
+                for (size_t q = 0; q < len; q++)
+                    print_error(" %02X", (unsigned char)text[q]);
+                print_error("\n  want: %s\n  got:  %s\n", want, got);
+                fail();
+            }
         }
     }
 }

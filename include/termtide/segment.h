@@ -70,5 +70,9 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);
 
 /* Returns 1 and fills tok, or 0 at the end. */
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok);
+/* The next tokens, up to max of them, into toks: the same tokens as that
+ * many calls of tt_tokenizer_next, for less work a token. Returns how many
+ * (fewer than max only at the end). */
+size_t tt_tokenizer_fill(tt_tokenizer *t, tt_token *toks, size_t max);
 
 #endif
