@@ -126,6 +126,18 @@ typedef struct resolved {
     cache_entry *entry; /* the general cache's entry now holding the token, or NULL */
 } resolved;
 
+/* Hits of an evicted way or entry wait in a small ring before they are
+ * added to the table: the term's slot is prefetched when they enter and
+ * read when the ring is full, EVICT_RING evictions later, so the table's
+ * cache miss overlaps the counting in between. */
+#define EVICT_RING 8
+typedef struct evicted {
+    char term[CACHE_RAW];
+    uint64_t hash;
+    uint32_t count;
+    uint8_t len;
+} evicted;
+
 typedef struct window_slot {
     tt_buf term;
     int edge_ok; /* may start or end an n-gram (not a stop-word, not short) */
@@ -148,6 +160,8 @@ struct tt_counter {
     dirty_list dirty;   /* ASCII sets with pending hits (maybe) */
     dirty_list gdirty;  /* general cache entries with pending hits (maybe) */
     tt_status fill_status; /* a failure to add evicted hits, for count_block */
+    evicted ring[EVICT_RING]; /* evicted hits waiting (ring_n from ring_head) */
+    size_t ring_head, ring_n;
     resolved general;   /* the last answer of resolve_general */
 };
 
@@ -176,6 +190,29 @@ static inline void dirty_mark(dirty_list *d, uint32_t id)
         d->on[id] = 1;
         d->id[d->n++] = id;
     }
+}
+
+/* Puts count hits of a term (len <= CACHE_RAW) on the ring of evicted hits,
+ * adding the oldest to table when the ring is full. */
+static tt_status evict_hits(tt_counter *c, tt_termtable *table, const char *term, size_t len,
+                            uint64_t hash, uint32_t count)
+{
+    if (c->ring_n == EVICT_RING) {
+        const evicted *old = &c->ring[c->ring_head];
+        tt_status s = tti_termtable_add_hashed(table, old->term, old->len, old->hash, old->count);
+        c->ring_head = (c->ring_head + 1) % EVICT_RING;
+        c->ring_n--;
+        if (s)
+            return s;
+    }
+    evicted *v = &c->ring[(c->ring_head + c->ring_n) % EVICT_RING];
+    memcpy(v->term, term, len);
+    v->len = (uint8_t)len;
+    v->hash = hash;
+    v->count = count;
+    c->ring_n++;
+    __builtin_prefetch(&table->slots[hash & (table->cap - 1)]);
+    return TT_OK;
 }
 
 /* Adds a general cache entry's pending hits to table. */
@@ -362,10 +399,11 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
     }
     out->entry = NULL;
     if (e && n <= CACHE_RAW) {
-        if ((s = entry_flush(e, table))) {
+        if (e->pending && (s = evict_hits(c, table, e->term, e->term_len, e->hash, e->pending))) {
             c->fill_status = s;
             return s;
         }
+        e->pending = 0;
         out->entry = e;
         memcpy(e->raw, key, sizeof key);
         e->raw_len = (uint8_t)len;
@@ -506,6 +544,11 @@ static tt_status way_flush(ascii_way *w, tt_termtable *table)
 static tt_status flush_pending(tt_counter *c, tt_termtable *table)
 {
     tt_status s = TT_OK;
+    for (; c->ring_n; c->ring_n--, c->ring_head = (c->ring_head + 1) % EVICT_RING) {
+        const evicted *v = &c->ring[c->ring_head];
+        if (!s && table)
+            s = tti_termtable_add_hashed(table, v->term, v->len, v->hash, v->count);
+    }
     for (size_t i = 0; i < c->dirty.n; i++) {
         c->dirty.on[c->dirty.id[i]] = 0;
         ascii_set *set = &c->ascii[c->dirty.id[i]];
@@ -545,10 +588,14 @@ static ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
     tti_term_bounds(low, len, &a, &b);
     uint64_t h;
     unsigned f = classify(c, (const char *)low + a, b - a, &h);
-    tt_status s = way_flush(&set->way[1], table);
-    if (s) {
-        c->fill_status = s;
-        return NULL;
+    const ascii_way *old = &set->way[1];
+    if (old->pending) {
+        tt_status s = evict_hits(c, table, (const char *)old->key + old->term_off, old->term_len,
+                                 old->hash, old->pending);
+        if (s) {
+            c->fill_status = s;
+            return NULL;
+        }
     }
     set->way[1] = set->way[0];
     ascii_way *w = &set->way[0];
