@@ -23,6 +23,7 @@
 #include "termtide/batch.h"
 #include "termtide/index.h"
 #include "termtide/sections.h"
+#include "termtable_internal.h"
 #include "tt_internal.h"
 
 typedef enum { EV_DOC, EV_PROBLEM } event_kind;
@@ -549,8 +550,15 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
         pthread_join(tids[t], NULL);
     tt_free(tids);
     for (size_t k = 0; k < r.n_partials; k++) {
-        if (!st && r.total_status == TT_OK)
-            r.total_status = tt_termtable_merge(opt->total, r.partials[k]);
+        if (!st && r.total_status == TT_OK) {
+            /* Into an empty total the first partial moves whole: the total
+             * takes its slots and terms instead of adding them one by one
+             * (merging is exact in any order). */
+            if (tt_termtable_distinct(opt->total) == 0 && tt_termtable_total(opt->total) == 0)
+                tti_termtable_swap(opt->total, r.partials[k]);
+            else
+                r.total_status = tt_termtable_merge(opt->total, r.partials[k]);
+        }
         tt_termtable_free(r.partials[k]);
     }
     tt_free(r.partials);

@@ -91,6 +91,9 @@ static inline tti_slot *tti_termtable_find(const tt_termtable *t, const char *te
 tt_status tti_termtable_insert(tt_termtable *t, tti_slot *s, const char *term, size_t len,
                                uint64_t hash, uint64_t count);
 
+/* Exchanges the contents of two tables (terms, counts, memory). */
+void tti_termtable_swap(tt_termtable *a, tt_termtable *b);
+
 /* tt_termtable_add with the term's hash (tti_termtable_hash) already known. */
 static inline tt_status tti_termtable_add_hashed(tt_termtable *t, const char *term, size_t len,
                                                  uint64_t hash, uint64_t count)
