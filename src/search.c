@@ -85,8 +85,13 @@
 #ifdef __SSE2__
 #include <emmintrin.h>
 #endif
+#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__) && \
+    (defined(__GNUC__) || defined(__clang__))
+#include <immintrin.h>
+#endif
 
 #include "termtide/segment.h"
+#include "termtide/simd.h"
 #include "search_internal.h"
 
 /* ---- results ------------------------------------------------------------ */
@@ -671,11 +676,129 @@ static unsigned two_bytes(const unsigned char *u)
     return x;
 }
 
+#if TTI_SIMD_WIDE
+/* The wide first look (see the top of the file and search_internal.h):
+ * the candidates among the W positions at p, one bit each, from
+ * p[0 .. W + TTI_PAIR_PRINT - 1). Per offset j, from the last: the bucket
+ * bits of the byte there (both nibbles looked up, ANDed), ANDed into what
+ * the offsets after it leave, where a byte above ASCII at offset j lets
+ * every later byte through (a longer character may start there). */
+#define PRINT_STEP(T, load, and, or, shuffle, srli16, neg, set1)                             \
+    do {                                                                                 \
+        const T nib = set1(0x0F);                                                        \
+        for (int j = TTI_PAIR_PRINT - 1; j >= 0; j--) {                                  \
+            T x = load(p + j);                                                           \
+            T m = and(shuffle(tab[j][0], and(x, nib)), shuffle(tab[j][1], and(srli16(x, 4), nib))); \
+            acc = j == TTI_PAIR_PRINT - 1 ? m : and(m, or(acc, neg(x)));                 \
+        }                                                                                \
+    } while (0)
+
+static inline __m128i load16(const unsigned char *p)
+{
+    return _mm_loadu_si128((const __m128i *)p);
+}
+
+__attribute__((target("ssse3"))) static inline __m128i neg16(__m128i x)
+{
+    return _mm_cmplt_epi8(x, _mm_setzero_si128());
+}
+
+__attribute__((target("ssse3"))) static inline unsigned print16(const __m128i tab[][2],
+                                                                const unsigned char *p)
+{
+    __m128i acc = _mm_setzero_si128();
+    PRINT_STEP(__m128i, load16, _mm_and_si128, _mm_or_si128, _mm_shuffle_epi8, _mm_srli_epi16,
+               neg16, _mm_set1_epi8);
+    return ~(unsigned)_mm_movemask_epi8(_mm_cmpeq_epi8(acc, _mm_setzero_si128())) & 0xFFFFu;
+}
+
+__attribute__((target("avx2"))) static inline __m256i load32(const unsigned char *p)
+{
+    return _mm256_loadu_si256((const __m256i *)p);
+}
+
+__attribute__((target("avx2"))) static inline __m256i neg32(__m256i x)
+{
+    return _mm256_cmpgt_epi8(_mm256_setzero_si256(), x);
+}
+
+__attribute__((target("avx2"))) static inline uint32_t print32(const __m256i tab[][2],
+                                                               const unsigned char *p)
+{
+    __m256i acc = _mm256_setzero_si256();
+    PRINT_STEP(__m256i, load32, _mm256_and_si256, _mm256_or_si256, _mm256_shuffle_epi8,
+               _mm256_srli_epi16, neg32, _mm256_set1_epi8);
+    return ~(uint32_t)_mm256_movemask_epi8(_mm256_cmpeq_epi8(acc, _mm256_setzero_si256()));
+}
+
+/* The pair scan's loop with the wide first look, W positions at a time
+ * (16 with SSSE3, 32 with AVX2): the rules are tried where it and the pair
+ * table let a position through, in rising order; the positions whose
+ * window would pass the block's end are looked at in a copy padded with
+ * zeros (a match lies within the block, so what the padding holds cannot
+ * matter, see build_print), all but the last, which pair_try takes. */
+#define PAIR_SCAN_WIDE(W, look)                                                         \
+    do {                                                                                \
+        const unsigned char *u = (const unsigned char *)t;                              \
+        const unsigned char *table = s->wl->pair_table;                                 \
+        int quick = s->wl->pair_words == 1;                                             \
+        size_t i = 0;                                                                   \
+        for (; i + (W) + TTI_PAIR_PRINT - 1 <= len; i += (W)) {                          \
+            uint32_t m = look(tab, u + i);                                              \
+            while (m) {                                                                 \
+                size_t p = i + (size_t)__builtin_ctz(m);                                \
+                m &= m - 1;                                                             \
+                if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out)) \
+                    return 1;                                                           \
+            }                                                                           \
+        }                                                                               \
+        for (; i + 1 < len; i += (W)) {                                                 \
+            unsigned char pad[(W) + TTI_PAIR_PRINT - 1];                                \
+            size_t n = len - i < sizeof pad ? len - i : sizeof pad;                     \
+            memset(pad, 0, sizeof pad);                                                 \
+            memcpy(pad, u + i, n);                                                      \
+            uint32_t m = look(tab, pad);                                                \
+            if (len - 1 - i < (W))                                                      \
+                m &= ((uint32_t)1 << (len - 1 - i)) - 1;                                \
+            while (m) {                                                                 \
+                size_t p = i + (size_t)__builtin_ctz(m);                                \
+                m &= m - 1;                                                             \
+                if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out)) \
+                    return 1;                                                           \
+            }                                                                           \
+        }                                                                               \
+        return pair_try(s, block, t, len, len - 1, out);                                \
+    } while (0)
+
+__attribute__((target("ssse3"))) static int pair_scan_ssse3(tt_searcher *s, size_t block,
+                                                            const char *t, size_t len,
+                                                            tt_search_result *out)
+{
+    __m128i tab[TTI_PAIR_PRINT][2];
+    for (size_t j = 0; j < TTI_PAIR_PRINT; j++)
+        for (size_t h = 0; h < 2; h++)
+            tab[j][h] = load16(s->wl->pair_print[j][h]);
+    PAIR_SCAN_WIDE(16, print16);
+}
+
+__attribute__((target("avx2"))) static int pair_scan_avx2(tt_searcher *s, size_t block,
+                                                          const char *t, size_t len,
+                                                          tt_search_result *out)
+{
+    __m256i tab[TTI_PAIR_PRINT][2];
+    for (size_t j = 0; j < TTI_PAIR_PRINT; j++)
+        for (size_t h = 0; h < 2; h++)
+            tab[j][h] = _mm256_broadcastsi128_si256(load16(s->wl->pair_print[j][h]));
+    PAIR_SCAN_WIDE(32, print32);
+}
+#endif
+
 /* The pair rules over one block (see the top of the file): one pass over
  * the block's byte pairs, four at a time, the rules tried where one can
- * start, in rising order of position. With SSE2 and few first bytes, 16
- * positions at a time are first matched against them (as in the
- * watch-list's pair_first). Returns 1 on out of memory, else 0. */
+ * start, in rising order of position. With SSSE3 or AVX2, the wide first
+ * look lets through the positions to try (PAIR_SCAN_WIDE); with SSE2 and
+ * few first bytes, 16 positions at a time are first matched against them
+ * (as in the watch-list's pair_first). Returns 1 on out of memory, else 0. */
 static int pair_scan(tt_searcher *s, size_t block, const char *t, size_t len,
                      tt_search_result *out)
 {
@@ -685,6 +808,13 @@ static int pair_scan(tt_searcher *s, size_t block, const char *t, size_t len,
     if (!len)
         return 0;
     memset(s->pair_next, 0, wl->n_pair * sizeof *s->pair_next);
+#if TTI_SIMD_WIDE
+    int level = tti_simd_level();
+    if (level >= TT_SIMD_AVX2)
+        return pair_scan_avx2(s, block, t, len, out);
+    if (level >= TT_SIMD_SSSE3)
+        return pair_scan_ssse3(s, block, t, len, out);
+#endif
     int quick = wl->pair_words == 1;
     size_t i = 0;
 #ifdef __SSE2__
