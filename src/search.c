@@ -680,16 +680,25 @@ static unsigned two_bytes(const unsigned char *u)
 /* The wide first look (see the top of the file and search_internal.h):
  * the candidates among the W positions at p, one bit each, from
  * p[0 .. W + TTI_PAIR_PRINT - 1). Per offset j, from the last: the bucket
- * bits of the byte there (both nibbles looked up, ANDed), ANDed into what
- * the offsets after it leave, where a byte above ASCII at offset j lets
- * every later byte through (a longer character may start there). */
+ * bits of the byte there (both nibbles looked up, ANDed), ANDed with what
+ * the offsets after it leave; a byte above ASCII at an offset j > 0 lets
+ * every bucket through from there on (the tables hold only ASCII there:
+ * a longer character may start at it, and what follows is unknown), and
+ * at offset 0 it must be in the tables, and lets every later byte
+ * through. */
 #define PRINT_STEP(T, load, and, or, shuffle, srli16, neg, set1)                             \
     do {                                                                                 \
         const T nib = set1(0x0F);                                                        \
+        _Pragma("GCC unroll 16")                                                         \
         for (int j = TTI_PAIR_PRINT - 1; j >= 0; j--) {                                  \
             T x = load(p + j);                                                           \
             T m = and(shuffle(tab[j][0], and(x, nib)), shuffle(tab[j][1], and(srli16(x, 4), nib))); \
-            acc = j == TTI_PAIR_PRINT - 1 ? m : and(m, or(acc, neg(x)));                 \
+            if (j == TTI_PAIR_PRINT - 1)                                                 \
+                acc = or(m, neg(x));                                                     \
+            else if (j > 0)                                                              \
+                acc = or(and(m, acc), neg(x));                                           \
+            else                                                                         \
+                acc = and(m, or(acc, neg(x)));                                           \
         }                                                                                \
     } while (0)
 

@@ -65,7 +65,7 @@ typedef struct tti_pair_rule {
  * each offset j < TTI_PAIR_PRINT from it while the bytes before offset j
  * are ASCII, the byte there has a low nibble l and a high nibble h with
  * bit b set in pair_print[j][0][l] and in pair_print[j][1][h]. */
-#define TTI_PAIR_PRINT 5
+#define TTI_PAIR_PRINT 6
 #define TTI_PAIR_BUCKETS 8
 
 struct tt_watchlist {

@@ -688,9 +688,10 @@ typedef struct print {
 /* The bytes a match of pr can have at each offset while the bytes before
  * it are ASCII (each then is one character of one step): an NFA over the
  * steps, where a step's character is one byte, a \s+ run one or more, and
- * the offsets after the last step (on any path) take every byte. A byte
- * above ASCII that may start a step's longer character is among them; what
- * follows it is the first look's concern (search.c). */
+ * the offsets after the last step (on any path) take every byte. At offset
+ * 0 a byte above ASCII that may start a step's longer character is among
+ * them; at later offsets only ASCII bytes are (the first look lets every
+ * byte above ASCII through there, search.c). */
 static void print_of(const tti_pair_rule *pr, const unsigned char *sets, print *out)
 {
     uint32_t at = 1;   /* bit k: the next byte may be step k's first */
@@ -705,7 +706,7 @@ static void print_of(const tti_pair_rule *pr, const unsigned char *sets, print *
             if (!((at | cont) >> k & 1))
                 continue;
             const unsigned char *set = sets + pr->step[k].set * 256;
-            for (unsigned b = 0; b < 256; b++)
+            for (unsigned b = 0; b < (j ? 0x80u : 256u); b++)
                 if (set[b]) {
                     out->lo[j] |= (uint16_t)(1u << (b & 15));
                     out->hi[j] |= (uint16_t)(1u << (b >> 4));
