@@ -20,7 +20,10 @@
  * is left to the other ways (pair_unsafe): an alternative at the top level,
  * \Q...\E, (?# comments, verbs, \G and \K. Cost, once per watch-list: 8 x
  * 257 bits and a few dozen bytes per pair-scanned rule, a 64 KiB pair table
- * built in 65536 x rules / 64 word operations.
+ * built in 65536 x rules / 64 word operations. For the scan's wide first
+ * look (SSSE3, AVX2), build_print reads the bytes each rule's match can
+ * have at its first six offsets from the same steps, puts the rules in
+ * eight buckets and writes 192 bytes of nibble tables.
  *
  * Prefilter and scan. The other rules' patterns, but for those that start
  * with a known character (each runs on its own over the whole text), are
