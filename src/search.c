@@ -24,7 +24,8 @@
  *    two 16-entry tables give, by the low and by the high nibble of the
  *    byte there, the buckets whose rules may have that byte (PSHUFB
  *    lookups, ANDed across the offsets; the fingerprint-by-nibble idea of
- *    the Teddy literal matcher, ICPP 2021, doi:10.1145/3472456.3473512).
+ *    the Teddy literal matcher of the Hyperscan regular-expression
+ *    library, named from memory).
  *    Its sets are supersets of the steps' (watchlist.c, build_print), and
  *    after a byte above ASCII every later byte passes, so it lets through
  *    every position where the tables would let a rule be tried: the
