@@ -59,6 +59,15 @@ typedef struct tti_pair_rule {
  * in that many keys. */
 #define TTI_PAIR_KEYS 8
 
+/* The scan's wide first look (search.c, with SSSE3 or AVX2): the pair
+ * rules are put in TTI_PAIR_BUCKETS buckets (watchlist.c, build_print),
+ * and a position may start a match of a rule of bucket b only when, for
+ * each offset j < TTI_PAIR_PRINT from it while the bytes before offset j
+ * are ASCII, the byte there has a low nibble l and a high nibble h with
+ * bit b set in pair_print[j][0][l] and in pair_print[j][1][h]. */
+#define TTI_PAIR_PRINT 6
+#define TTI_PAIR_BUCKETS 8
+
 struct tt_watchlist {
     tt_search_options opt;
     tti_rule *rules;
@@ -98,6 +107,7 @@ struct tt_watchlist {
     int pair_simd;          /* the SIMD first look is used, with these: */
     int pair_low;
     unsigned char pair_first[TTI_PAIR_KEYS];
+    unsigned char pair_print[TTI_PAIR_PRINT][2][16];
     int jit;
     tt_sha256 hash;
     char sha256[65];

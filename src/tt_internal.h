@@ -73,6 +73,19 @@ static inline size_t tti_token_slot(const uint64_t key[3], size_t len, unsigned 
 /* Whether the SSE2 paths are used (src/simd.c, tt_simd()). */
 extern int tti_use_simd;
 
+/* Whether SSSE3 and AVX2 versions are compiled in (x86 with SSE2, and a
+ * compiler that takes per-function target attributes and asks the CPU
+ * with __builtin_cpu_supports), and the widest level (TT_SIMD_ in
+ * termtide/simd.h) the SIMD paths may use now: TT_SIMD_PORTABLE under
+ * tt_simd(0), else up to the cap and what the CPU has. */
+#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__) && \
+    (defined(__GNUC__) || defined(__clang__))
+#define TTI_SIMD_WIDE 1
+#else
+#define TTI_SIMD_WIDE 0
+#endif
+int tti_simd_level(void);
+
 /* Counting many documents into one table (a running total): like
  * tt_counter_count, but hits may stay held in the counter's cache between
  * calls, so the table is up to date only after tti_counter_flush. Every

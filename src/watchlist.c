@@ -20,7 +20,10 @@
  * is left to the other ways (pair_unsafe): an alternative at the top level,
  * \Q...\E, (?# comments, verbs, \G and \K. Cost, once per watch-list: 8 x
  * 257 bits and a few dozen bytes per pair-scanned rule, a 64 KiB pair table
- * built in 65536 x rules / 64 word operations.
+ * built in 65536 x rules / 64 word operations. For the scan's wide first
+ * look (SSSE3, AVX2), build_print reads the bytes each rule's match can
+ * have at its first six offsets from the same steps, puts the rules in
+ * eight buckets and writes 192 bytes of nibble tables.
  *
  * Prefilter and scan. The other rules' patterns, but for those that start
  * with a known character (each runs on its own over the whole text), are
@@ -677,6 +680,188 @@ static unsigned pair_key(unsigned b0, unsigned b1)
     return x;
 }
 
+/* ---- the wide first look -------------------------------------------------- */
+
+/* A rule's (or a bucket's) view at offsets 0 .. TTI_PAIR_PRINT - 1: bit l
+ * of lo[j] and bit h of hi[j] for each byte h * 16 + l it may have there. */
+typedef struct print {
+    uint16_t lo[TTI_PAIR_PRINT], hi[TTI_PAIR_PRINT];
+} print;
+
+/* The bytes a match of pr can have at each offset while the bytes before
+ * it are ASCII (each then is one character of one step): an NFA over the
+ * steps, where a step's character is one byte, a \s+ run one or more, and
+ * the offsets after the last step (on any path) take every byte. At offset
+ * 0 a byte above ASCII that may start a step's longer character is among
+ * them; at later offsets only ASCII bytes are (the first look lets every
+ * byte above ASCII through there, search.c). */
+static void print_of(const tti_pair_rule *pr, const unsigned char *sets, print *out)
+{
+    uint32_t at = 1;   /* bit k: the next byte may be step k's first */
+    uint32_t cont = 0; /* bit k: the next byte may go on with step k's run */
+    int past = 0;      /* the steps may have ended */
+    for (size_t j = 0; j < TTI_PAIR_PRINT; j++) {
+        at |= cont << 1; /* a run may end before any byte */
+        past |= (int)(at >> pr->n_steps & 1);
+        out->lo[j] = out->hi[j] = past ? 0xFFFF : 0;
+        uint32_t next_at = 0, next_cont = 0;
+        for (size_t k = 0; k < pr->n_steps && !past; k++) {
+            if (!((at | cont) >> k & 1))
+                continue;
+            const unsigned char *set = sets + pr->step[k].set * 256;
+            for (unsigned b = 0; b < (j ? 0x80u : 256u); b++)
+                if (set[b]) {
+                    out->lo[j] |= (uint16_t)(1u << (b & 15));
+                    out->hi[j] |= (uint16_t)(1u << (b >> 4));
+                }
+            if (pr->step[k].run)
+                next_cont |= 1u << k;
+            else if (at >> k & 1)
+                next_at |= 1u << (k + 1);
+        }
+        at = next_at;
+        cont = next_cont;
+    }
+}
+
+/* Rough weights of bytes in English prose, to guess how often a print lets
+ * a position through: lower-case letters by their frequency in English
+ * text in tenths of a percent (R. Lewand, Cryptological Mathematics, 2000),
+ * capitals at a twentieth of that, space, punctuation, digits and line
+ * ends in rough proportion, other bytes rare. The weights only steer which
+ * rules share a bucket (and so how many positions the first look lets
+ * through), never what is found. */
+static unsigned byte_weight(unsigned b)
+{
+    static const unsigned char letter[26] = { 82, 15, 28, 43, 127, 22, 20, 61, 70, 2, 8, 40, 24,
+                                              67, 75, 19, 1,  60, 63, 91, 28, 10, 24, 2, 20, 1 };
+    if (b >= 'a' && b <= 'z')
+        return 20u * letter[b - 'a'];
+    if (b >= 'A' && b <= 'Z')
+        return letter[b - 'A'];
+    if (b == ' ')
+        return 3600;
+    if (b == ',' || b == '.')
+        return 200;
+    if (b >= '0' && b <= '9')
+        return 60;
+    if (b == '\n')
+        return 40;
+    if (b > 0x20 && b < 0x7F)
+        return 20;
+    return 1;
+}
+
+/* The share of text positions a print lets through, by byte_weight (the
+ * offsets taken as independent). */
+static double print_share(const print *p, const double *w)
+{
+    double share = 1;
+    for (size_t j = 0; j < TTI_PAIR_PRINT; j++) {
+        double s = 0;
+        for (unsigned h = 0; h < 16; h++)
+            if (p->hi[j] >> h & 1)
+                for (unsigned l = 0; l < 16; l++)
+                    if (p->lo[j] >> l & 1)
+                        s += w[h * 16 + l];
+        share *= s;
+    }
+    return share;
+}
+
+static void print_merge(print *into, const print *p)
+{
+    for (size_t j = 0; j < TTI_PAIR_PRINT; j++) {
+        into->lo[j] |= p->lo[j];
+        into->hi[j] |= p->hi[j];
+    }
+}
+
+static int print_cmp(const void *x, const void *y)
+{
+    return memcmp(x, y, sizeof(print));
+}
+
+/* Up to this many groups of rules are merged greedily (a cost matrix of
+ * their pairs); more distinct prints are first cut down to it in sorted
+ * order, which keeps prints sharing their first offsets together. */
+#define PRINT_GROUPS 32
+
+/* The wide first look's tables (see search_internal.h): each pair rule's
+ * print (print_of); rules with the same print together; then, while there
+ * are more groups than buckets, the two whose merging adds the least
+ * expected share of positions let through are merged (greedy; ties to the
+ * lowest pair). A bucket's print is the union of its rules' (the nibble
+ * tables let through every byte made of a low and a high nibble of the
+ * bucket's, a superset). Cost, once per watch-list: a sort of the rules'
+ * prints and at most PRINT_GROUPS^2 merge costs of 256 x TTI_PAIR_PRINT
+ * additions each, under a millisecond. */
+static tt_status build_print(tt_watchlist *wl)
+{
+    memset(wl->pair_print, 0, sizeof wl->pair_print);
+    print *p = tt_calloc(wl->n_pair, sizeof *p);
+    if (!p)
+        return TT_ENOMEM;
+    for (size_t k = 0; k < wl->n_pair; k++)
+        print_of(&wl->pair[k], wl->pair_sets, &p[k]);
+    qsort(p, wl->n_pair, sizeof *p, print_cmp);
+    size_t distinct = 0;
+    for (size_t k = 0; k < wl->n_pair; k++)
+        if (!distinct || memcmp(&p[k], &p[distinct - 1], sizeof *p))
+            p[distinct++] = p[k];
+    print group[PRINT_GROUPS];
+    size_t n = distinct < PRINT_GROUPS ? distinct : PRINT_GROUPS;
+    memset(group, 0, sizeof group);
+    for (size_t d = 0; d < distinct; d++)
+        print_merge(&group[d * n / distinct], &p[d]);
+    tt_free(p);
+    double w[256], total = 0;
+    for (unsigned b = 0; b < 256; b++)
+        total += w[b] = byte_weight(b);
+    for (unsigned b = 0; b < 256; b++)
+        w[b] /= total;
+    double share[PRINT_GROUPS], cost[PRINT_GROUPS][PRINT_GROUPS];
+    for (size_t a = 0; a < n; a++)
+        share[a] = print_share(&group[a], w);
+    for (size_t a = 0; a < n; a++)
+        for (size_t b = a + 1; b < n; b++) {
+            print m = group[a];
+            print_merge(&m, &group[b]);
+            cost[a][b] = print_share(&m, w) - share[a] - share[b];
+        }
+    while (n > TTI_PAIR_BUCKETS) {
+        size_t ba = 0, bb = 1;
+        for (size_t a = 0; a < n; a++)
+            for (size_t b = a + 1; b < n; b++)
+                if (cost[a][b] < cost[ba][bb])
+                    ba = a, bb = b;
+        print_merge(&group[ba], &group[bb]);
+        share[ba] = print_share(&group[ba], w);
+        /* the last group takes bb's place */
+        n--;
+        if (bb != n) {
+            group[bb] = group[n];
+            share[bb] = share[n];
+        }
+        for (size_t a = 0; a < n; a++)
+            for (size_t b = a + 1; b < n; b++)
+                if (a == ba || b == ba || a == bb || b == bb) {
+                    print m = group[a];
+                    print_merge(&m, &group[b]);
+                    cost[a][b] = print_share(&m, w) - share[a] - share[b];
+                }
+    }
+    for (size_t g = 0; g < n; g++)
+        for (size_t j = 0; j < TTI_PAIR_PRINT; j++)
+            for (unsigned x = 0; x < 16; x++) {
+                if (group[g].lo[j] >> x & 1)
+                    wl->pair_print[j][0][x] |= (unsigned char)(1u << g);
+                if (group[g].hi[j] >> x & 1)
+                    wl->pair_print[j][1][x] |= (unsigned char)(1u << g);
+            }
+    return TT_OK;
+}
+
 /* The pair scan's rules and tables (see search_internal.h): every pattern
  * rule whose start start_steps can read, compiled anchored, when there are
  * TTI_PAIR_MIN_RULES or more; fewer run faster on their own (whole text or
@@ -809,7 +994,7 @@ static tt_status build_pairs(tt_watchlist *wl)
     for (size_t j = keys; j < TTI_PAIR_KEYS; j++)
         wl->pair_first[j] = keys ? wl->pair_first[0] : 0x01;
     wl->pair_simd = simd;
-    return TT_OK;
+    return build_print(wl);
 }
 
 /* The prefilter alternation over the rules that can take part, and each

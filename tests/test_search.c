@@ -19,6 +19,7 @@
 #include "termtide/document.h"
 #include "termtide/search.h"
 #include "termtide/sha256.h"
+#include "termtide/simd.h"
 
 #define FIX "tests/fixtures/search/"
 
@@ -607,6 +608,29 @@ static void test_whole_text_alone_equals_per_block(void **state)
 
 /* ---- the pair scan ------------------------------------------------------------ */
 
+/* The ways the pair scan can run, in order: the portable code (tt_simd(0)),
+ * then SSE2, SSSE3 and AVX2 where the build and the CPU have them (the
+ * first look with eight keys, then the nibble-table first look 16 and 32
+ * positions at a time). Switches to way i and returns 1, or returns 0 when
+ * this build or CPU lacks it; simd_restore goes back to the default. */
+static const char *const simd_names[] = { "portable", "SSE2", "SSSE3", "AVX2" };
+#define SIMD_WAYS 4
+
+static int simd_way(int i)
+{
+    if (i == 0)
+        return tt_simd(0) == 0;
+    if (!tt_simd(1))
+        return 0;
+    return tt_simd_level(i) == i;
+}
+
+static void simd_restore(void)
+{
+    tt_simd(1);
+    tt_simd_level(TT_SIMD_AVX2);
+}
+
 /* Appends code point cp as UTF-8. */
 static void put_utf8(tt_buf *b, uint32_t cp)
 {
@@ -868,7 +892,8 @@ static void test_pair_scan_equals_alone(void **state)
  * U+212A, U+017F, U+2003 among them), every hit's rule and byte offset
  * equals what Python's re module (CPython standard library, re.finditer
  * with re.IGNORECASE) finds in the file, run at test time; once with more
- * first letters than the SIMD first look takes and once with few. */
+ * first letters than the SIMD first look takes and once with few, each
+ * through the portable code and every SIMD way the CPU has. */
 static void test_pair_scan_against_python_re(void **state)
 {
     (void)state;
@@ -905,22 +930,164 @@ static void test_pair_scan_against_python_re(void **state)
         const char *const *pats = list ? few : many;
         size_t np = list ? sizeof few / sizeof few[0] : sizeof many / sizeof many[0];
         tt_watchlist *wl = watchlist_of(pats, np);
-        tt_search_result r;
-        tt_search_result_init(&r);
-        search_file(wl, path, &r);
-
         char *want = python_re_hits(pats, np, path, 0);
-        tt_buf got;
-        tt_buf_init(&got, 0);
-        for (size_t h = 0; h < r.n_hits; h++)
-            tt_buf_printf(&got, "%lld\t%zu\n", r.hits[h].offset, r.hits[h].rule);
-        assert_true(r.n_hits > 1000);
-        assert_string_equal(got.data, want);
+        for (int way = 0; way < SIMD_WAYS; way++) {
+            if (!simd_way(way))
+                continue;
+            tt_search_result r;
+            tt_search_result_init(&r);
+            search_file(wl, path, &r);
+            tt_buf got;
+            tt_buf_init(&got, 0);
+            for (size_t h = 0; h < r.n_hits; h++)
+                tt_buf_printf(&got, "%lld\t%zu\n", r.hits[h].offset, r.hits[h].rule);
+            assert_true(r.n_hits > 1000);
+            if (strcmp(got.data, want))
+                fail_msg("list %d, %s: the hits differ from Python's re", list,
+                         simd_names[way]);
+            tt_buf_release(&got);
+            tt_search_result_release(&r);
+        }
+        simd_restore();
         free(want);
-        tt_buf_release(&got);
         tt_watchlist_free(wl);
-        tt_search_result_release(&r);
     }
+    unlink(path);
+    free(path);
+    tt_buf_release(&text);
+}
+
+/* Two results of one search are the same: every hit (rule, block, byte
+ * offset, line, exactness, matched text and context), the counts and the
+ * stops. */
+static void assert_same_result(const tt_search_result *a, const tt_search_result *b,
+                               const char *what)
+{
+    if (a->n_hits != b->n_hits)
+        fail_msg("%s: %zu hits, %zu expected", what, b->n_hits, a->n_hits);
+    for (size_t h = 0; h < a->n_hits; h++) {
+        const tt_search_hit *x = &a->hits[h], *y = &b->hits[h];
+        size_t n = x->before_len + x->match_len + x->after_len;
+        if (x->rule != y->rule || x->block != y->block || x->offset != y->offset ||
+            x->line != y->line || x->exact != y->exact || x->before_len != y->before_len ||
+            x->match_len != y->match_len || x->after_len != y->after_len ||
+            memcmp(a->text.data + x->text, b->text.data + y->text, n))
+            fail_msg("%s: hit %zu is rule %zu at %lld+%zu, expected rule %zu at %lld+%zu", what,
+                     h, y->rule, y->offset, y->match_len, x->rule, x->offset, x->match_len);
+    }
+    assert_int_equal(a->n_rules, b->n_rules);
+    for (size_t r = 0; r < a->n_rules; r++)
+        assert_int_equal(a->counts[r], b->counts[r]);
+    assert_int_equal(a->n_stops, b->n_stops);
+}
+
+/* Every SIMD way of the pair scan gives the portable code's result on
+ * random text shaped to hit the edges of the wide steps: paragraphs (each
+ * a block) of every length from 0 to about 120 bytes and a few of several
+ * thousand, phrases after fillers of every length from 0 to 40, so that
+ * their starts, their white-space runs and their ends fall on every offset
+ * of a 16- and a 32-byte window, across a window's end and up to the
+ * block's last byte; runs of white space mixing ASCII (space, 0x1C to
+ * 0x1F) and Unicode (U+2003, U+3000, U+00A0); typographic quotes and
+ * dashes (E2 80 xx, the lead byte of many Unicode spaces) next to words;
+ * caseless k and s as U+212A and U+017F; words that share a phrase's first
+ * letters. Watch-lists: 20 two-word phrases of common words (more first
+ * words than buckets), rules led by \s, \b, k and s, one-letter and
+ * one-word rules, and 70 rules (more than one 64-bit word of rules);
+ * caseless, with --case and with --words. */
+static void test_pair_scan_simd_same_as_portable(void **state)
+{
+    (void)state;
+    static const char *words[] = {
+        "the", "are", "of", "that", "to", "and", "a", "was", "which", "this", "or", "is", "on",
+        "for", "in", "ok", "ask", "kiss", "then", "th", "tha", "thee", "an", "ar", "o", "wa",
+        "whic", "fo", "i", "s", "k", "THE", "The", "xq", "q", "O\xE2\x84\xAA", "i\xC5\xBF",
+        "a\xE2\x84\xAAsk", "\xC5\xBFo", "\xE2\x84\xAA"
+    };
+    static const char *seps[] = {
+        " ", " ", " ", " ", " ", "\x1C", " \x1D ", "\x1E\x1F", "\xE2\x80\x83",
+        " \xE3\x80\x80 ", "\xC2\xA0", "\xE2\x80\x99 ", " \xE2\x80\x9C", " \xE2\x80\x94 ", ", ",
+        ". ", "-", " \xE2\x80\x83"
+    };
+    static const char *phrases[] = {
+        "the\\s+are", "of\\s+that", "to\\s+to", "and\\s+a", "are\\s+the", "was\\s+the",
+        "a\\s+and", "for\\s+of", "of\\s+for", "the\\s+was", "the\\s+which", "this\\s+the",
+        "the\\s+this", "the\\s+or", "on\\s+of", "which\\s+the", "or\\s+the", "to\\s+in",
+        "is\\s+and", "of\\s+on"
+    };
+    static const char *edges[] = {
+        "\\s+and", "\\bthe\\s+are\\b", "k\\s+then", "s\\s+t", "ask\\s+the", "is", "a", "th",
+        "kiss", "o\\s+k", "\\bis\\s+a", "t\\s\\s+o", "ok\\s+then", "\\s\\s", "q\\b"
+    };
+    static const char *firsts[] = { "the", "a", "is", "ok", "th", "and", "q" };
+    static const char *seconds[] = { "are", "and", "then", "the", "a", "is", "end", "th", "k",
+                                     "q" };
+    char store[70][32];
+    const char *many[70];
+    for (size_t i = 0; i < 70; i++) {
+        snprintf(store[i], sizeof store[i], "%s\\s+%s", firsts[i % 7], seconds[i / 7]);
+        many[i] = store[i];
+    }
+    tt_buf text;
+    tt_buf_init(&text, 0);
+    uint32_t seed = 20261203;
+#define NEXT() (seed = seed * 1103515245u + 12345u, seed >> 16)
+    for (int para = 0; para < 3000; para++) {
+        size_t filler = para % 41, nwords = NEXT() % 12;
+        if (para % 500 == 499)
+            nwords = 1500;
+        for (size_t f = 0; f < filler; f++)
+            tt_buf_putc(&text, "zyxv0123456789"[NEXT() % 14]);
+        if (filler && nwords)
+            tt_buf_puts(&text, seps[NEXT() % (sizeof seps / sizeof seps[0])]);
+        for (size_t w = 0; w < nwords; w++) {
+            if (w)
+                tt_buf_puts(&text, seps[NEXT() % (sizeof seps / sizeof seps[0])]);
+            tt_buf_puts(&text, words[NEXT() % (sizeof words / sizeof words[0])]);
+        }
+        tt_buf_puts(&text, "\n\n");
+    }
+#undef NEXT
+    char *path = write_temp(text.data, text.len, ".txt");
+    struct {
+        const char *const *rules;
+        size_t n;
+    } lists[] = { { phrases, sizeof phrases / sizeof phrases[0] },
+                  { edges, sizeof edges / sizeof edges[0] },
+                  { many, 70 } };
+    for (size_t l = 0; l < sizeof lists / sizeof lists[0]; l++)
+        for (int mode = 0; mode < 3; mode++) {
+            tt_search_options o;
+            tt_search_options_init(&o);
+            o.context = 2;
+            o.case_sensitive = mode == 1;
+            o.whole_words = mode == 2;
+            tt_buf all;
+            tt_buf_init(&all, 0);
+            for (size_t i = 0; i < lists[l].n; i++)
+                tt_buf_printf(&all, "r%zu\t%s\n", i, lists[l].rules[i]);
+            tt_watchlist *wl = parse_ok(all.data, &o);
+            tt_buf_release(&all);
+            tt_search_result want;
+            tt_search_result_init(&want);
+            assert_true(simd_way(0));
+            search_file(wl, path, &want);
+            assert_true(want.n_hits > 200);
+            for (int way = 1; way < SIMD_WAYS; way++) {
+                if (!simd_way(way))
+                    continue;
+                tt_search_result got;
+                tt_search_result_init(&got);
+                search_file(wl, path, &got);
+                char what[64];
+                snprintf(what, sizeof what, "list %zu, mode %d, %s", l, mode, simd_names[way]);
+                assert_same_result(&want, &got, what);
+                tt_search_result_release(&got);
+            }
+            simd_restore();
+            tt_search_result_release(&want);
+            tt_watchlist_free(wl);
+        }
     unlink(path);
     free(path);
     tt_buf_release(&text);
@@ -1081,8 +1248,9 @@ static void test_catastrophic_pattern(void **state)
 /* Cross-check: on a plain-text fixture, every hit (rule, byte offset, line,
  * matched text with white space collapsed) equals what Python's re module
  * (CPython standard library, re.finditer with re.IGNORECASE) finds in the
- * file's raw text, run at test time. The patterns cross line breaks and
- * non-ASCII letters, so the offsets are followed through the normalization. */
+ * file's raw text, run at test time, through the portable code and every
+ * SIMD way the CPU has. The patterns cross line breaks and non-ASCII
+ * letters, so the offsets are followed through the normalization. */
 static void test_crosscheck_python_re(void **state)
 {
     (void)state;
@@ -1091,26 +1259,30 @@ static void test_crosscheck_python_re(void **state)
                                       "caf\\w", "z\\w+rich", "doubt\\s+\\w+" };
     size_t np = sizeof patterns / sizeof patterns[0];
     tt_watchlist *wl = watchlist_of(patterns, np);
-    tt_search_result r;
-    tt_search_result_init(&r);
-    search_file(wl, FIX "crosscheck.txt", &r);
-
     char *want = python_re_hits(patterns, np, FIX "crosscheck.txt", 1);
-
-    tt_buf got;
-    tt_buf_init(&got, 0);
-    for (size_t h = 0; h < r.n_hits; h++) {
-        const tt_search_hit *hit = &r.hits[h];
-        assert_int_equal(hit->exact, 1);
-        tt_buf_printf(&got, "%lld\t%zu\t%ld\t%.*s\n", hit->offset, hit->rule, hit->line,
-                      (int)hit->match_len, r.text.data + hit->text + hit->before_len);
+    for (int way = 0; way < SIMD_WAYS; way++) {
+        if (!simd_way(way))
+            continue;
+        tt_search_result r;
+        tt_search_result_init(&r);
+        search_file(wl, FIX "crosscheck.txt", &r);
+        tt_buf got;
+        tt_buf_init(&got, 0);
+        for (size_t h = 0; h < r.n_hits; h++) {
+            const tt_search_hit *hit = &r.hits[h];
+            assert_int_equal(hit->exact, 1);
+            tt_buf_printf(&got, "%lld\t%zu\t%ld\t%.*s\n", hit->offset, hit->rule, hit->line,
+                          (int)hit->match_len, r.text.data + hit->text + hit->before_len);
+        }
+        assert_true(r.n_hits >= 15);
+        if (strcmp(got.data, want))
+            fail_msg("%s: the hits differ from Python's re", simd_names[way]);
+        tt_buf_release(&got);
+        tt_search_result_release(&r);
     }
-    assert_true(r.n_hits >= 15);
-    assert_string_equal(got.data, want);
+    simd_restore();
     free(want);
-    tt_buf_release(&got);
     tt_watchlist_free(wl);
-    tt_search_result_release(&r);
 }
 
 /* CRLF text: line numbers count CRLF once; a phrase across the break is
@@ -1392,6 +1564,7 @@ int main(void)
         cmocka_unit_test(test_pair_sets_against_pcre2),
         cmocka_unit_test(test_pair_scan_equals_alone),
         cmocka_unit_test(test_pair_scan_against_python_re),
+        cmocka_unit_test(test_pair_scan_simd_same_as_portable),
         cmocka_unit_test(test_split_phrases),
         cmocka_unit_test(test_html_offsets),
         cmocka_unit_test(test_html_hidden_offsets),
