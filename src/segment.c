@@ -42,9 +42,15 @@
  * segments joined by a single hyphen segment (U+002D, U+2010 or U+2011,
  * nothing attached) become one token. ASCII spaces and punctuation, the
  * most common non-token segments, are stepped over without entering
- * segment_end(). The tokenizer never allocates or copies, and never walks
- * back: an over-long token (a 50 MB run of letters, a base64 blob) is
- * walked once, counted, and dropped. */
+ * segment_end(). Most tokens of filing prose (nine in ten on the
+ * benchmark's) are ASCII runs followed by a space or a punctuation mark:
+ * fast_token() takes them with the chunk masks alone, and
+ * tt_tokenizer_fill() hands them out in batches: on the benchmark's 10 MB
+ * sample the tokenizer costs about 150 instructions a token in all, where
+ * the walk above alone took about 250 (callgrind). The tokenizer
+ * never allocates or copies, and never walks back: an over-long token (a
+ * 50 MB run of letters, a base64 blob) is walked once, counted, and
+ * dropped. */
 #if defined(__SSE2__)
 #include <emmintrin.h>
 #endif
