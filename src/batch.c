@@ -34,6 +34,7 @@ typedef struct event {
     /* EV_DOC */
     char *path, *type, *entity, *period, *form, *notes;
     const char *encoding;
+    char sha256[65];
     tt_doc_kind doc_kind, outer_kind;
     uint64_t bytes;
     tt_doc_stats stats;
@@ -200,7 +201,7 @@ static tt_doc_result result_of(const event *e, size_t input)
         .input = input, .name = e->name, .path = e->path,
         .kind = e->doc_kind, .outer_kind = e->outer_kind,
         .encoding = e->encoding, .type = e->type, .entity = e->entity,
-        .period = e->period, .form = e->form, .notes = e->notes,
+        .period = e->period, .form = e->form, .notes = e->notes, .sha256 = e->sha256,
         .bytes = e->bytes, .stats = e->stats, .table = e->table,
         .prepared = e->prepared.data, .prepared_len = e->prepared.len,
     };
@@ -309,6 +310,7 @@ static tt_status on_doc(void *vctx, const tt_document *doc)
     e->form = tt_strdup(doc->form ? doc->form : "");
     e->notes = tt_strdup(doc->notes ? doc->notes : "");
     e->encoding = tt_encoding_name(doc->decode.encoding);
+    tti_strlcpy(e->sha256, doc->sha256 ? doc->sha256 : "", sizeof e->sha256);
     e->doc_kind = doc->kind;
     e->outer_kind = doc->outer_kind;
     e->bytes = doc->raw_len;

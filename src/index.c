@@ -49,6 +49,7 @@
 
 #include "termtide/index.h"
 #include "termtide/termtable.h"
+#include "termtable_internal.h"
 #include "tt_internal.h"
 
 struct tt_index {
@@ -583,11 +584,12 @@ static tt_status file_begin(tt_index *ix, const char *path, const char *sha256, 
     return TT_OK;
 }
 
-/* The id of a term, added to the dictionary when new. */
-static tt_status term_id(tt_index *ix, const char *term, size_t len, uint64_t *id,
+/* The id of a term (hash: tti_termtable_hash of it), added to the
+ * dictionary when new. */
+static tt_status term_id(tt_index *ix, const char *term, size_t len, uint64_t hash, uint64_t *id,
                          tt_error *err)
 {
-    *id = tt_termtable_get(ix->id_of, term, len);
+    *id = tti_termtable_get_hashed(ix->id_of, term, len, hash);
     if (*id)
         return TT_OK;
     if (!ix->ins_term) {
@@ -612,7 +614,7 @@ static tt_status term_id(tt_index *ix, const char *term, size_t len, uint64_t *i
     sqlite3_bind_text(ix->ins_term, 2, term, (int)len, SQLITE_STATIC);
     if (sqlite3_step(ix->ins_term) != SQLITE_DONE)
         return db_error(ix, err, "writing the index");
-    if (tt_termtable_add(ix->id_of, term, len, *id))
+    if (tti_termtable_add_hashed(ix->id_of, term, len, hash, *id))
         return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
     return TT_OK;
 }
@@ -621,52 +623,72 @@ typedef struct pair {
     uint64_t id, count;
 } pair;
 
-typedef struct collect {
-    tt_index *ix;
-    pair *pairs;
-    size_t n;
-    tt_status st;
-    tt_error *err;
-} collect;
-
-static int collect_term(void *ctx, const tt_term_entry *e)
+/* Sorts pairs by id: least significant digit first, 11 bits a pass, as
+ * many passes as the largest id needs (two for a dictionary of up to four
+ * million terms); tmp holds n pairs. Stable, O(n) per pass. */
+static void sort_pairs(pair *p, pair *tmp, size_t n, uint64_t max_id)
 {
-    collect *c = ctx;
-    uint64_t id;
-    if ((c->st = term_id(c->ix, e->term, e->len, &id, c->err)) != TT_OK)
-        return 1;
-    c->pairs[c->n++] = (pair){ id, e->count };
-    return 0;
-}
-
-static int cmp_pair(const void *a, const void *b)
-{
-    const pair *x = a, *y = b;
-    return x->id < y->id ? -1 : x->id > y->id;
+    enum { BITS = 11, BUCKETS = 1 << BITS };
+    size_t count[BUCKETS];
+    for (unsigned shift = 0; shift < 64 && (max_id >> shift); shift += BITS) {
+        memset(count, 0, sizeof count);
+        for (size_t i = 0; i < n; i++)
+            count[(p[i].id >> shift) & (BUCKETS - 1)]++;
+        size_t sum = 0;
+        for (size_t b = 0; b < BUCKETS; b++) {
+            size_t c = count[b];
+            count[b] = sum;
+            sum += c;
+        }
+        for (size_t i = 0; i < n; i++)
+            tmp[count[(p[i].id >> shift) & (BUCKETS - 1)]++] = p[i];
+        memcpy(p, tmp, n * sizeof *p);
+    }
 }
 
 tt_status tt_index_file_add_document(tt_index *ix, const tt_doc_result *r, tt_error *err)
 {
     size_t distinct = r->table ? tt_termtable_distinct(r->table) : 0;
-    collect c = { ix, tt_calloc(distinct ? distinct : 1, sizeof(pair)), 0, TT_OK, err };
-    if (!c.pairs)
+    pair *pairs = tt_calloc(distinct ? 2 * distinct : 1, sizeof(pair));
+    if (!pairs)
         return tt_error_set(err, TT_ENOMEM, ix->path, -1, "out of memory");
-    if (r->table)
-        tt_termtable_foreach(r->table, collect_term, &c);
-    tt_status st = c.st;
+    /* Each term's id, looked up with the hash the document's table already
+     * holds (every table shares the process's key), the dictionary's slot
+     * of the term 16 slots on prefetched. */
+    size_t n = 0;
+    uint64_t max_id = 0;
+    tt_status st = TT_OK;
+    if (r->table) {
+        const tt_termtable *t = r->table;
+        enum { AHEAD = 16 };
+        for (size_t i = 0; i < t->cap && !st; i++) {
+            if (i + AHEAD < t->cap && t->slots[i + AHEAD].term)
+                __builtin_prefetch(
+                    &ix->id_of->slots[t->slots[i + AHEAD].hash & (ix->id_of->cap - 1)]);
+            const tti_slot *sl = &t->slots[i];
+            if (!sl->term)
+                continue;
+            uint64_t id;
+            if ((st = term_id(ix, sl->term, sl->len, sl->hash, &id, err)))
+                break;
+            pairs[n++] = (pair){ id, sl->count };
+            if (id > max_id)
+                max_id = id;
+        }
+    }
     tt_buf_reset(&ix->blob);
     if (!st) {
-        qsort(c.pairs, c.n, sizeof *c.pairs, cmp_pair);
+        sort_pairs(pairs, pairs + distinct, n, max_id);
         uint64_t prev = 0;
-        for (size_t i = 0; i < c.n && !st; i++) {
-            st = put_varint(&ix->blob, c.pairs[i].id - prev);
-            if (!st) st = put_varint(&ix->blob, c.pairs[i].count);
-            prev = c.pairs[i].id;
+        for (size_t i = 0; i < n && !st; i++) {
+            st = put_varint(&ix->blob, pairs[i].id - prev);
+            if (!st) st = put_varint(&ix->blob, pairs[i].count);
+            prev = pairs[i].id;
         }
         if (st)
             tt_error_set(err, st, ix->path, -1, "out of memory");
     }
-    tt_free(c.pairs);
+    tt_free(pairs);
     if (st)
         return st;
     if (!ix->ins_doc &&
@@ -936,6 +958,7 @@ static tt_status replay_file(tt_index *ix, size_t input, const char *path, long 
         r.period = col_text(docs, 7);
         r.form = col_text(docs, 8);
         r.notes = col_text(docs, 9);
+        r.sha256 = "";
         r.bytes = (uint64_t)sqlite3_column_int64(docs, 10);
         r.stats.words_read = (uint64_t)sqlite3_column_int64(docs, 11);
         r.stats.numbers = (uint64_t)sqlite3_column_int64(docs, 12);
@@ -1097,7 +1120,8 @@ static tt_status copy_blob(tt_index *out, tt_index *shard, const unsigned char *
 {
     const unsigned char *end = p + n;
     size_t cap = n / 2 + 1, m = 0;
-    pair *pairs = tt_calloc(cap, sizeof *pairs);
+    pair *pairs = tt_calloc(2 * cap, sizeof *pairs); /* the pairs, then room to sort them */
+    uint64_t max_id = 0;
     if (!pairs)
         return tt_error_set(err, TT_ENOMEM, out->path, -1, "out of memory");
     uint64_t id = 0;
@@ -1111,13 +1135,16 @@ static tt_status copy_blob(tt_index *out, tt_index *shard, const unsigned char *
         }
         id += delta;
         const char *term = shard->term_of[id - 1];
-        if ((st = term_id(out, term, strlen(term), &nid, err)) != TT_OK)
+        size_t len = strlen(term);
+        if ((st = term_id(out, term, len, tti_termtable_hash(term, len), &nid, err)) != TT_OK)
             break;
         pairs[m++] = (pair){ nid, count };
+        if (nid > max_id)
+            max_id = nid;
     }
     tt_buf_reset(&out->blob);
     if (!st) {
-        qsort(pairs, m, sizeof *pairs, cmp_pair);
+        sort_pairs(pairs, pairs + cap, m, max_id);
         uint64_t prev = 0;
         for (size_t i = 0; i < m && !st; i++) {
             st = put_varint(&out->blob, pairs[i].id - prev);

@@ -208,14 +208,20 @@ static void write_text(const char *name, const char *text)
     fclose(f);
 }
 
+/* Copies the files named (shell words) into the test's docs folder. */
+static void copy_docs(const char *files)
+{
+    char cmd[2048];
+    snprintf(cmd, sizeof cmd, "mkdir -p %s/docs && cp %s %s/docs/", tmpdir, files, tmpdir);
+    assert_int_equal(system(cmd), 0);
+}
+
 static void test_incremental(void **state)
 {
     (void)state;
     char cmd[1024], args[1024], p[512];
     size_t n;
-    snprintf(cmd, sizeof cmd, "mkdir -p %s/docs && cp demo-corpus/hollowmere/2024-Q*-call-* "
-             "%s/docs/", tmpdir, tmpdir);
-    assert_int_equal(system(cmd), 0);
+    copy_docs("demo-corpus/hollowmere/2024-Q*-call-*");
     write_text("extra.txt", "Revenue rose. Margins held.\n");
     snprintf(args, sizeof args, "index %s/inc.db %s/docs", tmpdir, tmpdir);
     assert_int_equal(tt(args, "i1"), 0);
@@ -245,6 +251,58 @@ static void test_incremental(void **state)
     assert_non_null(strstr(out, "\tshrank\t"));
     assert_null(strstr(out, "\trose\t"));
     assert_null(strstr(out, "2024-Q1-call"));
+    free(out);
+}
+
+/* Each file's recorded SHA-256 equals Python's hashlib.sha256 of the file
+ * (the reference, run at test time), whether it came from the bytes read
+ * for counting (a new file, a gzip file, a file of no documents, a file
+ * whose size changed) or from hashing before reading (a file of unchanged
+ * size); a change that keeps the size is found by its hash. */
+static void test_file_hashes(void **state)
+{
+    (void)state;
+    char cmd[2048], args[1024], p[512];
+    size_t n;
+    copy_docs("demo-corpus/hollowmere/2024-Q1-call-transcript.txt "
+              "demo-corpus/ambleworth/2023-Q4-call-transcript.txt.gz");
+    write_text("same.txt", "Revenue glimmered. Margins held.\n");
+    write_text("grows.txt", "Costs fell.\n");
+    write_text("empty.txt", "");
+    for (int round = 0; round < 2; round++) {
+        snprintf(args, sizeof args, "index %s/h.db %s/docs", tmpdir, tmpdir);
+        assert_int_equal(tt(args, round ? "h2" : "h1"), 0);
+        snprintf(p, sizeof p, "%s/%s.err", tmpdir, round ? "h2" : "h1");
+        char *err = tt_test_slurp(p, &n);
+        const char *want = round ? "0 new, 2 changed, 3 unchanged" : "5 new, 0 changed, 0 unchanged";
+        if (!strstr(err, want))
+            fail_msg("run %d: %s (expected %s)", round + 1, err, want);
+        free(err);
+        snprintf(cmd, sizeof cmd,
+                 "%s -c 'import hashlib, sqlite3, sys\n"
+                 "c = sqlite3.connect(sys.argv[1])\n"
+                 "rows = c.execute(\"SELECT path, sha256, size FROM files\").fetchall()\n"
+                 "assert len(rows) == 5, rows\n"
+                 "for path, sha, size in rows:\n"
+                 "    data = open(path, \"rb\").read()\n"
+                 "    assert sha == hashlib.sha256(data).hexdigest(), (path, sha)\n"
+                 "    assert size == len(data), (path, size)\n' %s/h.db",
+                 tt_test_python(), tmpdir);
+        assert_int_equal(system(cmd), 0);
+        /* the same size with other bytes, and a longer file */
+        write_text("same.txt", "Revenue shimmered. Margins held.\n");
+        write_text("grows.txt", "Costs fell sharply.\n");
+    }
+    snprintf(args, sizeof args, "count %s/docs", tmpdir);
+    assert_int_equal(tt(args, "files"), 0);
+    snprintf(args, sizeof args, "count --db %s/h.db", tmpdir);
+    assert_int_equal(tt(args, "db"), 0);
+    assert_true(same_file("files.out", "db.out"));
+    snprintf(p, sizeof p, "%s/db.out", tmpdir);
+    char *out = tt_test_slurp(p, &n);
+    assert_null(strstr(out, "\tglimmered\t")); /* the same-size change was read again */
+    assert_non_null(strstr(out, "\tshimmered\t"));
+    assert_non_null(strstr(out, "\tsharply\t"));
     free(out);
 }
 
@@ -701,6 +759,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test_setup_teardown(test_same_as_files, setup, teardown),
         cmocka_unit_test_setup_teardown(test_incremental, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_file_hashes, setup, teardown),
         cmocka_unit_test_setup_teardown(test_kill9, setup, teardown),
         cmocka_unit_test_setup_teardown(test_schema, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readers_while_writing, setup, teardown),

@@ -23,6 +23,8 @@ typedef struct tt_doc_result {
     const char *type;        /* wrapper <TYPE> or "" */
     const char *entity, *period, *form; /* wrapper header or "" */
     const char *notes;       /* "" when none */
+    const char *sha256;      /* the file's SHA-256 (64 hex digits) from the bytes read,
+                                when read.sha256 is set; else "" */
     uint64_t bytes;          /* decoded bytes of this document */
     tt_doc_stats stats;
     const tt_termtable *table;

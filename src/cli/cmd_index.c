@@ -1,5 +1,6 @@
 /* termtide index — count files into a persistent index (SQLite), reading
  * only the files that are new or changed since the last run. */
+#include <errno.h>
 #include <stdint.h>
 #include <stdlib.h>
 #include <string.h>
@@ -82,11 +83,27 @@ static tt_status tone_analyse(void *ctx, void *state, const tt_document *doc, tt
     return cli_tone_score(state, doc, out, stats);
 }
 
-/* Opens input i's transaction when it is not open yet. */
-static tt_status ensure_begun(index_ctx *c, size_t i)
+/* Opens input i's transaction when it is not open yet. The file's SHA-256
+ * is the one taken before reading (a file already in the index with its
+ * size unchanged), else the one of the bytes read (sha_read, from a
+ * document), else, for a file that gave no document, read now; a file
+ * that cannot be hashed is not recorded (its problem is reported). */
+static tt_status ensure_begun(index_ctx *c, size_t i, const char *sha_read)
 {
     if (c->current == i)
         return TT_OK;
+    if (!c->sha[i][0]) {
+        if (sha_read && strlen(sha_read) == 64) {
+            memcpy(c->sha[i], sha_read, 65);
+        } else {
+            tt_error e;
+            tt_error_init(&e);
+            if (tt_sha256_file(c->to_read->items[i].path, c->sha[i], &e)) {
+                c->sha[i][0] = '\0';
+                return e.status ? e.status : TT_EIO;
+            }
+        }
+    }
     c->current = i;
     return tt_index_file_begin(c->ix, c->to_read->items[i].path, c->sha[i], c->size[i],
                                &c->err);
@@ -95,7 +112,7 @@ static tt_status ensure_begun(index_ctx *c, size_t i)
 static tt_status on_document(void *ctx, const tt_doc_result *r)
 {
     index_ctx *c = ctx;
-    tt_status st = ensure_begun(c, r->input);
+    tt_status st = ensure_begun(c, r->input, r->sha256);
     return st ? st : tt_index_file_add_document(c->ix, r, &c->err);
 }
 
@@ -107,7 +124,7 @@ static void on_problem(void *ctx, const char *name, const tt_error *err, int ski
     if (c->err.status)
         return;
     size_t i = c->current == SIZE_MAX ? c->files_done : c->current;
-    if (ensure_begun(c, i))
+    if (ensure_begun(c, i, NULL))
         return;
     tt_index_file_add_problem(c->ix, name, err, skipped, &c->err);
 }
@@ -119,7 +136,7 @@ static void on_progress(void *ctx, size_t done, size_t total, uint64_t bytes_don
 {
     index_ctx *c = ctx;
     size_t i = done - 1;
-    if (!c->err.status && ensure_begun(c, i) == TT_OK)
+    if (!c->err.status && ensure_begun(c, i, NULL) == TT_OK)
         tt_index_file_commit(c->ix, 0, &c->err);
     c->current = SIZE_MAX;
     c->files_done = done;
@@ -190,7 +207,11 @@ int tt_cmd_index(int argc, char **argv)
     c.size = calloc(inputs.n ? inputs.n : 1, sizeof *c.size);
     if (!c.sha || !c.size)
         goto oom;
-    /* which files are new or changed */
+    /* Which files are new or changed. Only a file already in the index at
+     * its size is hashed now (unchanged when its SHA-256 is the one
+     * recorded); a new file, or one whose size changed, is read once, its
+     * hash taken from the same bytes as its counts (read.sha256). */
+    c.pipe.batch.read.sha256 = 1;
     for (size_t i = 0; i < inputs.n; i++) {
         const tt_source_entry *in = &inputs.items[i];
         if (in->status != TT_OK || !strcmp(in->path, "-")) {
@@ -200,11 +221,12 @@ int tt_cmd_index(int argc, char **argv)
             missing++;
             continue;
         }
-        char hex[65];
+        char hex[65] = "";
         struct stat sb;
         tt_index_file f;
         tt_error_init(&err);
-        if (tt_sha256_file(in->path, hex, &err) || stat(in->path, &sb) != 0) {
+        if (stat(in->path, &sb) != 0) {
+            tt_error_set(&err, TT_EIO, in->path, -1, "%s", strerror(errno));
             cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
             missing++;
             continue;
@@ -213,9 +235,16 @@ int tt_cmd_index(int argc, char **argv)
             cli_error("%s", tt_error_format(&err, msg, sizeof msg));
             goto out;
         }
-        if (f.found && !strcmp(f.sha256, hex)) {
-            unchanged++;
-            continue;
+        if (f.found && f.size == (uint64_t)sb.st_size) {
+            if (tt_sha256_file(in->path, hex, &err)) {
+                cli_error("%s (skipped)", tt_error_format(&err, msg, sizeof msg));
+                missing++;
+                continue;
+            }
+            if (!strcmp(f.sha256, hex)) {
+                unchanged++;
+                continue;
+            }
         }
         if (f.found)
             changed++;
