@@ -401,7 +401,8 @@ oom:
 }
 
 tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
-                              uint64_t top, uint64_t min_count, uint64_t per)
+                              uint64_t top, uint64_t min_count, uint64_t per,
+                              tt_outfile *flush_to, tt_error *err)
 {
     tt_term_entry *e = NULL;
     size_t n = 0;
@@ -429,6 +430,8 @@ tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_term
         if (!st) st = tt_table_fixed(w, cum_share, 6);
         if (!st && per) st = tt_table_fixed(w, share * (double)per, 4);
         if (!st) st = tt_table_end_row(w);
+        if (!st && flush_to)
+            st = cli_flush(flush_to, w->out, err, 0);
     }
     tt_free(e);
     return st;

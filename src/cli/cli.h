@@ -174,9 +174,13 @@ int cli_pipeline_profile(const cli_pipeline *p, tt_buf *out);
 tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force);
 /* The rows of a term table (count's terms view) after tt_table_begin:
  * document rank term count share cum_count cum_share [rate_per_N], by
- * descending count; top and min_count 0 for all, per 0 for no rate. */
+ * descending count; top and min_count 0 for all, per 0 for no rate. With
+ * flush_to, the writer's buffer goes to it whenever it holds 1 MiB
+ * (cli_flush; err filled on a write error), so a large table is never
+ * built whole in memory; NULL keeps every row in the buffer. */
 tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
-                              uint64_t top, uint64_t min_count, uint64_t per);
+                              uint64_t top, uint64_t min_count, uint64_t per,
+                              tt_outfile *flush_to, tt_error *err);
 
 /* The run of a command whose rows an analysis writes (readability,
  * sections): opens the output (atomic), writes the header unless

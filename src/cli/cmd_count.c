@@ -110,12 +110,14 @@ static tt_status header_once(count_ctx *c)
     return begin(c, &w, &c->buf, 1);
 }
 
+/* flush_to and err: as for cli_write_term_rows (NULL in a worker). */
 static tt_status write_terms(const count_ctx *c, tt_buf *out, const char *doc,
-                             const tt_termtable *t)
+                             const tt_termtable *t, tt_outfile *flush_to, tt_error *err)
 {
     tt_table_writer w;
     tt_status st = begin(c, &w, out, 0);
-    return st ? st : cli_write_term_rows(&w, doc, t, c->top, c->min_count, c->per);
+    return st ? st
+              : cli_write_term_rows(&w, doc, t, c->top, c->min_count, c->per, flush_to, err);
 }
 
 static tt_status write_classes(const count_ctx *c, tt_buf *out, const char *doc,
@@ -204,7 +206,7 @@ static tt_status prepare(void *ctx, const tt_doc_result *r, tt_buf *out)
     if (c->total_only)
         return TT_OK;
     switch (c->show) {
-    case SHOW_TERMS: return write_terms(c, out, r->name, r->table);
+    case SHOW_TERMS: return write_terms(c, out, r->name, r->table, NULL, NULL);
     case SHOW_CLASSES: return write_classes(c, out, r->name, r->table);
     case SHOW_SUMMARY:
         return write_summary(c, out, r->name, tt_doc_kind_name(r->kind), r->type, r->encoding,
@@ -349,7 +351,7 @@ int tt_cmd_count(int argc, char **argv)
         st = header_once(&c);
         if (!st) {
             switch (c.show) {
-            case SHOW_TERMS: st = write_terms(&c, &c.buf, "*", c.all); break;
+            case SHOW_TERMS: st = write_terms(&c, &c.buf, "*", c.all, &c.out, &c.err); break;
             case SHOW_CLASSES: st = write_classes(&c, &c.buf, "*", c.all); break;
             case SHOW_SUMMARY:
                 st = write_summary(&c, &c.buf, "*", "all", "", "", &c.all_stats, c.all);

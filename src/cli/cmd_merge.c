@@ -286,7 +286,8 @@ static int merge_tables(int nfiles, char **files, const char *output, int quiet)
         tt_buf_reset(&m.out);
         st = tt_table_begin(&w, TT_FORMAT_TSV, &m.out, term_cols, m.per ? 8 : 7, 0);
         if (!st)
-            st = cli_write_term_rows(&w, "*", m.has_docs ? m.all : m.stars, 0, 0, m.per);
+            st = cli_write_term_rows(&w, "*", m.has_docs ? m.all : m.stars, 0, 0, m.per, &out,
+                                     &err);
         if (!st)
             st = tt_outfile_write(&out, m.out.data, m.out.len, &err);
     }
