@@ -489,6 +489,20 @@ static void test_total_only_equals_merged_tables(void **state)
         assert_string_equal(got, want);
         free(got);
     }
+    /* The table (over 1 MiB, so written out in pieces as it is formatted)
+     * is whole: ranks run 1, 2, 3, ... and each cum_count is the one
+     * before plus the row's count. */
+    unsigned long long rank = 0, cum = 0;
+    for (char *line = strchr(want, '\n') + 1; *line; line = strchr(line, '\n') + 1) {
+        unsigned long long r, count, c;
+        char term[64];
+        assert_int_equal(sscanf(line, "*\t%llu\t%63[^\t]\t%llu\t%*s\t%llu", &r, term, &count, &c),
+                         4);
+        assert_int_equal(r, ++rank);
+        cum += count;
+        assert_int_equal(c, cum);
+    }
+    assert_true(m > (1u << 20));
     free(want);
     free(all);
 }
