@@ -767,21 +767,30 @@ __attribute__((target("avx2"))) static inline uint32_t print32(const __m256i tab
  * the block (pair_fits ends at the block's end) or a byte above ASCII
  * comes first (which lets every later byte through), and at offsets past
  * its last step the first look takes any byte (build_print). */
+/* The positions i + k, for each bit k of m, that the pair table lets
+ * through, tried in rising order; 1 on out of memory. */
+static inline int pair_candidates(tt_searcher *s, size_t block, const char *t, size_t len,
+                                  size_t i, uint32_t m, int quick, tt_search_result *out)
+{
+    const unsigned char *u = (const unsigned char *)t;
+    const unsigned char *table = s->wl->pair_table;
+    while (m) {
+        size_t p = i + (size_t)__builtin_ctz(m);
+        m &= m - 1;
+        if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out))
+            return 1;
+    }
+    return 0;
+}
+
 #define PAIR_SCAN_WIDE(W, look)                                                         \
     do {                                                                                \
         const unsigned char *u = (const unsigned char *)t;                              \
-        const unsigned char *table = s->wl->pair_table;                                 \
         int quick = s->wl->pair_words == 1;                                             \
         size_t i = 0;                                                                   \
-        for (; i + (W) + TTI_PAIR_PRINT - 1 <= len; i += (W)) {                          \
-            uint32_t m = look(tab, u + i);                                              \
-            while (m) {                                                                 \
-                size_t p = i + (size_t)__builtin_ctz(m);                                \
-                m &= m - 1;                                                             \
-                if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out)) \
-                    return 1;                                                           \
-            }                                                                           \
-        }                                                                               \
+        for (; i + (W) + TTI_PAIR_PRINT - 1 <= len; i += (W))                           \
+            if (pair_candidates(s, block, t, len, i, look(tab, u + i), quick, out))    \
+                return 1;                                                               \
         for (; i + 1 < len; i += (W)) {                                                 \
             unsigned char pad[(W) + TTI_PAIR_PRINT - 1];                                \
             size_t n = len - i < sizeof pad ? len - i : sizeof pad;                     \
@@ -790,12 +799,8 @@ __attribute__((target("avx2"))) static inline uint32_t print32(const __m256i tab
             uint32_t m = look(tab, pad);                                                \
             if (len - 1 - i < (W))                                                      \
                 m &= ((uint32_t)1 << (len - 1 - i)) - 1;                                \
-            while (m) {                                                                 \
-                size_t p = i + (size_t)__builtin_ctz(m);                                \
-                m &= m - 1;                                                             \
-                if (table[two_bytes(u + p)] && pair_at_byte(s, block, t, len, p, quick, out)) \
-                    return 1;                                                           \
-            }                                                                           \
+            if (pair_candidates(s, block, t, len, i, m, quick, out))                    \
+                return 1;                                                               \
         }                                                                               \
         return pair_try(s, block, t, len, len - 1, out);                                \
     } while (0)

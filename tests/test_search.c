@@ -801,6 +801,19 @@ static size_t check_equals_alone(const char *const *rules, size_t nr, const char
     return n;
 }
 
+/* 70 two-word phrase rules (more than one 64-bit word of rules): the
+ * pattern strings in store, pointers to them in many. */
+static void seventy_rules(char store[70][32], const char *many[70])
+{
+    static const char *firsts[] = { "the", "a", "is", "ok", "th", "and", "q" };
+    static const char *seconds[] = { "are", "and", "then", "the", "a", "is", "end", "th", "k",
+                                     "q" };
+    for (size_t i = 0; i < 70; i++) {
+        snprintf(store[i], 32, "%s\\s+%s", firsts[i % 7], seconds[i / 7]);
+        many[i] = store[i];
+    }
+}
+
 /* Rules whose start the pair scan reads (watchlist.c, start_steps) give
  * exactly the hits each gets alone (then it runs on its own, over the
  * whole text or per block), caseless, with --case and with --words: rules
@@ -874,15 +887,9 @@ static void test_pair_scan_equals_alone(void **state)
         assert_true(check_equals_alone(eight, sizeof eight / sizeof eight[0], text.data, &o) > 15);
     }
     /* 70 rules: more than one 64-bit word of rules */
-    static const char *firsts[] = { "the", "a", "is", "ok", "th", "and", "q" };
-    static const char *seconds[] = { "are", "and", "then", "the", "a", "is", "end", "th", "k",
-                                     "q" };
     char store[70][32];
     const char *many[70];
-    for (size_t i = 0; i < 70; i++) {
-        snprintf(store[i], sizeof store[i], "%s\\s+%s", firsts[i % 7], seconds[i / 7]);
-        many[i] = store[i];
-    }
+    seventy_rules(store, many);
     tt_search_options_init(&o);
     assert_true(check_equals_alone(many, 70, text.data, &o) > 50);
     tt_buf_release(&text);
@@ -1019,15 +1026,9 @@ static void test_pair_scan_simd_same_as_portable(void **state)
         "\\s+and", "\\bthe\\s+are\\b", "k\\s+then", "s\\s+t", "ask\\s+the", "is", "a", "th",
         "kiss", "o\\s+k", "\\bis\\s+a", "t\\s\\s+o", "ok\\s+then", "\\s\\s", "q\\b"
     };
-    static const char *firsts[] = { "the", "a", "is", "ok", "th", "and", "q" };
-    static const char *seconds[] = { "are", "and", "then", "the", "a", "is", "end", "th", "k",
-                                     "q" };
     char store[70][32];
     const char *many[70];
-    for (size_t i = 0; i < 70; i++) {
-        snprintf(store[i], sizeof store[i], "%s\\s+%s", firsts[i % 7], seconds[i / 7]);
-        many[i] = store[i];
-    }
+    seventy_rules(store, many);
     tt_buf text;
     tt_buf_init(&text, 0);
     uint32_t seed = 20261203;
