@@ -8,7 +8,8 @@
  * size, and output is identical whatever the thread count.
  *
  * When only the total is wanted, each worker counts straight into its own
- * partial table, and the partials are merged at the end; otherwise each
+ * partial table, and the partials are merged at the end (or handed over
+ * unmerged, total_parts, for the caller to sort together); otherwise each
  * document gets its own table, delivered with its result (and merged into
  * the worker's partial when a total is wanted too).
  *
@@ -551,6 +552,13 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     for (int t = 0; t < started; t++)
         pthread_join(tids[t], NULL);
     tt_free(tids);
+    if (opt->total_parts && !st && r.total_status == TT_OK) {
+        /* handed over unmerged (see total_parts) */
+        opt->total_parts->tables = r.partials;
+        opt->total_parts->n = r.n_partials;
+        r.partials = NULL;
+        r.n_partials = 0;
+    }
     for (size_t k = 0; k < r.n_partials; k++) {
         if (!st && r.total_status == TT_OK) {
             /* Into an empty total the first partial moves whole: the total

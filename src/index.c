@@ -634,12 +634,7 @@ static void sort_pairs(pair *p, pair *tmp, size_t n, uint64_t max_id)
         memset(count, 0, sizeof count);
         for (size_t i = 0; i < n; i++)
             count[(p[i].id >> shift) & (BUCKETS - 1)]++;
-        size_t sum = 0;
-        for (size_t b = 0; b < BUCKETS; b++) {
-            size_t c = count[b];
-            count[b] = sum;
-            sum += c;
-        }
+        tti_prefix_sums(count, BUCKETS);
         for (size_t i = 0; i < n; i++)
             tmp[count[(p[i].id >> shift) & (BUCKETS - 1)]++] = p[i];
         memcpy(p, tmp, n * sizeof *p);

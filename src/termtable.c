@@ -27,6 +27,8 @@
 #include "tt_internal.h"
 #include "termtable_internal.h"
 
+#include <pthread.h>
+
 /* The slot and table layout are in termtable_internal.h. */
 typedef tti_slot slot;
 
@@ -98,7 +100,7 @@ tt_termtable *tt_termtable_new(void)
     tt_termtable *t = tt_calloc(1, sizeof *t);
     if (!t)
         return NULL;
-    t->slots = tt_calloc(INITIAL_CAP, sizeof *t->slots);
+    t->slots = tti_alloc_large(INITIAL_CAP, sizeof *t->slots, &t->slots_mapped);
     if (!t->slots) {
         tt_free(t);
         return NULL;
@@ -121,8 +123,17 @@ void tt_termtable_free(tt_termtable *t)
     if (!t)
         return;
     free_arena(t->arena);
-    tt_free(t->slots);
+    tti_free_large(t->slots, t->cap, sizeof *t->slots, t->slots_mapped);
     tt_free(t);
+}
+
+void tt_termtable_set_release(tt_termtable_set *s)
+{
+    for (size_t i = 0; i < s->n; i++)
+        tt_termtable_free(s->tables[i]);
+    tt_free(s->tables);
+    s->tables = NULL;
+    s->n = 0;
 }
 
 void tt_termtable_reset(tt_termtable *t)
@@ -161,7 +172,8 @@ static const char *arena_copy(tt_termtable *t, const char *s, size_t len)
 static tt_status grow(tt_termtable *t)
 {
     size_t cap = t->cap * 2;
-    slot *slots = tt_calloc(cap, sizeof *slots);
+    int mapped;
+    slot *slots = tti_alloc_large(cap, sizeof *slots, &mapped);
     if (!slots)
         return TT_ENOMEM;
     for (size_t i = 0; i < t->cap; i++) {
@@ -172,8 +184,9 @@ static tt_status grow(tt_termtable *t)
             j = (j + 1) & (cap - 1);
         slots[j] = t->slots[i];
     }
-    tt_free(t->slots);
+    tti_free_large(t->slots, t->cap, sizeof *t->slots, t->slots_mapped);
     t->slots = slots;
+    t->slots_mapped = mapped;
     t->cap = cap;
     return TT_OK;
 }
@@ -324,16 +337,103 @@ static void sort_items(sort_item *a, sort_item *tmp, size_t n)
         a[k++] = tmp[i++];
 }
 
-tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n)
+/* Sorting many terms (the total of a large corpus, tens of thousands of
+ * distinct terms): a merge sort costs some 17 rounds of comparisons and
+ * moves. Instead, since the order is total, it can be built in two stable
+ * steps: order the terms bytewise (a least-significant-digit radix sort on
+ * the 8-byte prefix, RADIX_BITS at a time, passes whose digit is the same
+ * for every item skipped; runs of equal prefixes, terms of 8 bytes or more
+ * that agree on the first 8, then sorted by bytes_cmp), and then sort that
+ * by count descending with a stable radix sort, which keeps the bytewise
+ * order among equal counts. Each pass reads and writes the items once. A
+ * small table (a document's) keeps the merge sort. */
+#define RADIX_BITS 11
+#define RADIX_SIZE ((size_t)1 << RADIX_BITS)
+#define RADIX_PASSES 6 /* 66 bits cover a 64-bit key */
+#define RADIX_MIN 2048 /* fewer items: the merge sort */
+
+static inline uint64_t key_of(const sort_item *it, int by_count)
 {
-    size_t total = t->distinct ? t->distinct : 1;
-    tt_term_entry *e = tt_reallocarray(NULL, total, sizeof *e);
-    sort_item *items = tt_reallocarray(NULL, total + total / 2 + 1, sizeof *items);
-    if (!e || !items) {
-        tt_free(e);
-        tt_free(items);
-        return TT_ENOMEM;
+    return by_count ? ~it->count : it->prefix;
+}
+
+/* Sorts a[0, n) by prefix (by_count 0) or by count descending (1), stably,
+ * using tmp (room for n); returns whichever of a and tmp holds the result.
+ * hist: RADIX_PASSES * RADIX_SIZE counters. */
+static sort_item *radix_items(sort_item *a, sort_item *tmp, size_t n, int by_count, size_t *hist)
+{
+    memset(hist, 0, RADIX_PASSES * RADIX_SIZE * sizeof *hist);
+    for (size_t i = 0; i < n; i++) {
+        uint64_t k = key_of(&a[i], by_count);
+        for (int p = 0; p < RADIX_PASSES; p++)
+            hist[(size_t)p * RADIX_SIZE + ((k >> (p * RADIX_BITS)) & (RADIX_SIZE - 1))]++;
     }
+    for (int p = 0; p < RADIX_PASSES; p++) {
+        size_t *h = hist + (size_t)p * RADIX_SIZE;
+        const int shift = p * RADIX_BITS;
+        if (n == 0 || h[(key_of(&a[0], by_count) >> shift) & (RADIX_SIZE - 1)] == n)
+            continue; /* every item has this digit: the order stands */
+        tti_prefix_sums(h, RADIX_SIZE);
+        for (size_t i = 0; i < n; i++)
+            tmp[h[(key_of(&a[i], by_count) >> shift) & (RADIX_SIZE - 1)]++] = a[i];
+        sort_item *t = a;
+        a = tmp;
+        tmp = t;
+    }
+    return a;
+}
+
+static inline int term_before(const sort_item *a, const sort_item *b)
+{
+    return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
+}
+
+/* Sorts a[0, n) bytewise by term using tmp (room for n / 2 + 1). */
+static void sort_by_term(sort_item *a, sort_item *tmp, size_t n)
+{
+    if (n <= 16) {
+        for (size_t i = 1; i < n; i++) {
+            sort_item x = a[i];
+            size_t j = i;
+            for (; j > 0 && term_before(&x, &a[j - 1]); j--)
+                a[j] = a[j - 1];
+            a[j] = x;
+        }
+        return;
+    }
+    size_t h = n / 2;
+    sort_by_term(a, tmp, h);
+    sort_by_term(a + h, tmp, n - h);
+    if (!term_before(&a[h], &a[h - 1]))
+        return;
+    memcpy(tmp, a, h * sizeof *a);
+    size_t i = 0, j = h, k = 0;
+    while (i < h && j < n)
+        a[k++] = term_before(&a[j], &tmp[i]) ? a[j++] : tmp[i++];
+    while (i < h)
+        a[k++] = tmp[i++];
+}
+
+/* Sorts a[0, n) bytewise by term (terms distinct); tmp has room for n.
+ * Returns whichever of a and tmp holds the result. */
+static sort_item *sort_terms(sort_item *a, sort_item *tmp, size_t n, size_t *hist)
+{
+    sort_item *r = radix_items(a, tmp, n, 0, hist);
+    sort_item *spare = r == a ? tmp : a;
+    for (size_t i = 0; i < n;) {
+        size_t j = i + 1;
+        while (j < n && r[j].prefix == r[i].prefix)
+            j++;
+        if (j - i > 1)
+            sort_by_term(r + i, spare, j - i);
+        i = j;
+    }
+    return r;
+}
+
+/* The items of table t: count, prefix, term. */
+static size_t gather(const tt_termtable *t, sort_item *items)
+{
     size_t k = 0;
     for (size_t i = 0; i < t->cap; i++) {
         const slot *s = &t->slots[i];
@@ -345,16 +445,278 @@ tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t
         items[k].len = s->len;
         k++;
     }
-    sort_items(items, items + total, k);
-    for (size_t i = 0; i < k; i++) {
+    return k;
+}
+
+static void items_to_entries(const sort_item *items, size_t n, tt_term_entry *e)
+{
+    for (size_t i = 0; i < n; i++) {
         e[i].term = items[i].term;
         e[i].len = items[i].len;
         e[i].count = items[i].count;
     }
+}
+
+tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n)
+{
+    const tt_termtable *one[1] = { t };
+    if (t->distinct >= RADIX_MIN)
+        return tt_termtable_sorted_union(one, 1, 1, out, n);
+    size_t total = t->distinct ? t->distinct : 1;
+    tt_term_entry *e = tt_reallocarray(NULL, total, sizeof *e);
+    sort_item *items = tt_reallocarray(NULL, total + total / 2 + 1, sizeof *items);
+    if (!e || !items) {
+        tt_free(e);
+        tt_free(items);
+        return TT_ENOMEM;
+    }
+    size_t k = gather(t, items);
+    sort_items(items, items + total, k);
+    items_to_entries(items, k, e);
     tt_free(items);
     *out = e;
     *n = k;
     return TT_OK;
+}
+
+/* The union of several tables (the partial totals of a batch's workers),
+ * without building a merged table: each table's items are sorted bytewise
+ * (a task per table), the sorted lists are merged with equal terms' counts
+ * added (a task per range of terms: the ranges are cut at terms of the
+ * longest list, found in the others by binary search), and the result is
+ * sorted by count as above. */
+/* A sort buffer: from tti_alloc_large (huge pages for large tables). */
+typedef struct big_buf {
+    sort_item *p;
+    size_t n;
+    int mapped;
+} big_buf;
+
+static int big_get(big_buf *b, size_t n)
+{
+    b->n = n ? n : 1;
+    b->p = tti_alloc_large(b->n, sizeof *b->p, &b->mapped);
+    return b->p != NULL;
+}
+
+static void big_put(big_buf *b)
+{
+    tti_free_large(b->p, b->n, sizeof *b->p, b->mapped);
+    b->p = NULL;
+}
+
+typedef struct union_part {
+    const tt_termtable *table;
+    big_buf mem[2];    /* the items and their radix sort's second buffer */
+    sort_item *sorted; /* in one of mem, after the sort */
+    size_t n;
+    size_t *hist;
+} union_part;
+
+typedef struct union_job {
+    union_part *parts;
+    size_t nparts;
+    size_t ntasks;
+    sort_item **pivots; /* ntasks - 1 cut points (NULL: none) */
+    sort_item *out;     /* the merge's output, room for every item */
+    size_t *out_at, *out_n; /* per merge task: where it writes, how many */
+} union_job;
+
+typedef struct task_runner {
+    void (*fn)(void *ctx, size_t task);
+    void *ctx;
+    size_t ntasks, stride, first;
+} task_runner;
+
+static void *task_thread(void *arg)
+{
+    task_runner *r = arg;
+    for (size_t i = r->first; i < r->ntasks; i += r->stride)
+        r->fn(r->ctx, i);
+    return NULL;
+}
+
+/* Runs fn(ctx, 0..ntasks-1) on up to threads threads (this one included);
+ * tasks of a thread that cannot start run on this one. */
+static void run_tasks(int threads, size_t ntasks, void (*fn)(void *ctx, size_t task), void *ctx)
+{
+    size_t t = threads < 1 ? 1 : (size_t)threads;
+    if (t > ntasks)
+        t = ntasks;
+    if (t > 64)
+        t = 64;
+    pthread_t tid[64];
+    task_runner r[64];
+    int started[64] = { 0 };
+    for (size_t k = 1; k < t; k++) {
+        r[k] = (task_runner){ fn, ctx, ntasks, t, k };
+        started[k] = pthread_create(&tid[k], NULL, task_thread, &r[k]) == 0;
+    }
+    r[0] = (task_runner){ fn, ctx, ntasks, t, 0 };
+    task_thread(&r[0]);
+    for (size_t k = 1; k < t; k++) {
+        if (started[k])
+            pthread_join(tid[k], NULL);
+        else
+            task_thread(&r[k]);
+    }
+}
+
+static void sort_part(void *ctx, size_t i)
+{
+    union_part *p = &((union_job *)ctx)->parts[i];
+    size_t k = gather(p->table, p->mem[0].p);
+    p->n = k;
+    p->sorted = sort_terms(p->mem[0].p, p->mem[1].p, k, p->hist);
+}
+
+/* The first item of a[0, n) not bytewise before x. */
+static size_t lower_bound(const sort_item *a, size_t n, const sort_item *x)
+{
+    size_t lo = 0, hi = n;
+    while (lo < hi) {
+        size_t mid = lo + (hi - lo) / 2;
+        if (term_before(&a[mid], x))
+            lo = mid + 1;
+        else
+            hi = mid;
+    }
+    return lo;
+}
+
+static void merge_range(void *ctx, size_t task)
+{
+    union_job *j = ctx;
+    size_t pos[64], end[64];
+    for (size_t i = 0; i < j->nparts; i++) {
+        const union_part *p = &j->parts[i];
+        pos[i] = task == 0 ? 0 : lower_bound(p->sorted, p->n, j->pivots[task - 1]);
+        end[i] = task + 1 == j->ntasks ? p->n : lower_bound(p->sorted, p->n, j->pivots[task]);
+    }
+    sort_item *out = j->out + j->out_at[task];
+    size_t m = 0;
+    for (;;) {
+        /* the bytewise least term among the heads, its counts added up */
+        const sort_item *least = NULL;
+        for (size_t i = 0; i < j->nparts; i++)
+            if (pos[i] < end[i] &&
+                (!least || term_before(&j->parts[i].sorted[pos[i]], least)))
+                least = &j->parts[i].sorted[pos[i]];
+        if (!least)
+            break;
+        sort_item x = *least;
+        x.count = 0;
+        for (size_t i = 0; i < j->nparts; i++) {
+            const sort_item *h = &j->parts[i].sorted[pos[i]];
+            if (pos[i] < end[i] && h->prefix == x.prefix && h->len == x.len &&
+                (h == least || memcmp(h->term, x.term, x.len) == 0)) {
+                x.count += h->count;
+                pos[i]++;
+            }
+        }
+        out[m++] = x;
+    }
+    j->out_n[task] = m;
+}
+
+tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t ntables,
+                                    int threads, tt_term_entry **out, size_t *n)
+{
+    if (ntables > 64)
+        return TT_EINVAL;
+    union_job j;
+    memset(&j, 0, sizeof j);
+    union_part parts[64];
+    memset(parts, 0, sizeof parts);
+    j.parts = parts;
+    j.nparts = ntables;
+    tt_status st = TT_ENOMEM;
+    size_t all = 0, hist_n = RADIX_PASSES * RADIX_SIZE;
+    size_t *hist = tt_reallocarray(NULL, (ntables ? ntables : 1) * hist_n, sizeof *hist);
+    big_buf merged = { 0 }, spare = { 0 };
+    if (!hist)
+        goto done;
+    for (size_t i = 0; i < ntables; i++) {
+        parts[i].table = tables[i];
+        parts[i].hist = hist + i * hist_n;
+        if (!big_get(&parts[i].mem[0], tables[i]->distinct) ||
+            !big_get(&parts[i].mem[1], tables[i]->distinct))
+            goto done;
+        all += tables[i]->distinct;
+    }
+    run_tasks(threads, ntables, sort_part, &j);
+    for (size_t i = 0; i < ntables; i++) /* keep the sorted buffer only */
+        big_put(&parts[i].mem[parts[i].sorted == parts[i].mem[0].p]);
+
+    size_t u;
+    sort_item *items;
+    if (ntables == 1) {
+        /* nothing to add up: the sorted list is the union */
+        merged = parts[0].mem[parts[0].sorted == parts[0].mem[1].p];
+        memset(&parts[0].mem, 0, sizeof parts[0].mem);
+        items = parts[0].sorted;
+        u = parts[0].n;
+    } else {
+        /* Merge tasks: ranges cut at evenly spaced terms of the longest
+         * list; a task writes where the items of the ranges before it
+         * would end if no term repeated, and the pieces are closed up. */
+        size_t longest = 0;
+        for (size_t i = 1; i < ntables; i++)
+            if (parts[i].n > parts[longest].n)
+                longest = i;
+        size_t ntasks = threads < 1 ? 1 : (size_t)threads;
+        if (ntasks > 64)
+            ntasks = 64;
+        if (parts[longest].n < ntasks * 1024)
+            ntasks = 1;
+        sort_item *pivots[64];
+        size_t out_at[64], out_n[64];
+        for (size_t k = 1; k < ntasks; k++)
+            pivots[k - 1] = &parts[longest].sorted[parts[longest].n * k / ntasks];
+        if (!big_get(&merged, all))
+            goto done;
+        j.ntasks = ntasks;
+        j.pivots = pivots;
+        j.out = merged.p;
+        j.out_at = out_at;
+        j.out_n = out_n;
+        out_at[0] = 0;
+        for (size_t k = 1; k < ntasks; k++) {
+            out_at[k] = 0;
+            for (size_t i = 0; i < ntables; i++)
+                out_at[k] += lower_bound(parts[i].sorted, parts[i].n, pivots[k - 1]);
+        }
+        run_tasks(threads, ntasks, merge_range, &j);
+        u = out_n[0];
+        for (size_t k = 1; k < ntasks; k++) {
+            memmove(merged.p + u, merged.p + out_at[k], out_n[k] * sizeof *merged.p);
+            u += out_n[k];
+        }
+        for (size_t i = 0; i < ntables; i++) {
+            big_put(&parts[i].mem[0]);
+            big_put(&parts[i].mem[1]);
+        }
+        items = merged.p;
+    }
+
+    tt_term_entry *e = tt_reallocarray(NULL, u ? u : 1, sizeof *e);
+    if (!e || !big_get(&spare, u)) {
+        tt_free(e);
+        goto done;
+    }
+    items_to_entries(radix_items(items, spare.p, u, 1, hist), u, e);
+    *out = e;
+    *n = u;
+    st = TT_OK;
+done:
+    for (size_t i = 0; i < ntables; i++) {
+        big_put(&parts[i].mem[0]);
+        big_put(&parts[i].mem[1]);
+    }
+    big_put(&merged);
+    big_put(&spare);
+    tt_free(hist);
+    return st;
 }
 
 void tt_termtable_foreach(const tt_termtable *t,

@@ -32,6 +32,7 @@ struct tt_termtable {
     size_t distinct;
     uint64_t total;
     struct tti_chunk *arena; /* newest first */
+    int slots_mapped; /* slots from tti_alloc_large's pages */
 };
 
 /* Byte equality without a library call, so that a probe loop makes no

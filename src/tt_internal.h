@@ -111,4 +111,24 @@ extern const struct tti_embedded tti_lexicon_files[];
 /* Copies src into a fixed array, truncating, always NUL-terminated. */
 void tti_strlcpy(char *dst, const char *src, size_t size);
 
+/* Turns counts c[0..n) into exclusive prefix sums in place (each bucket's
+ * first position, for a counting or radix sort). */
+static inline void tti_prefix_sums(size_t *c, size_t n)
+{
+    size_t sum = 0;
+    for (size_t i = 0; i < n; i++) {
+        size_t k = c[i];
+        c[i] = sum;
+        sum += k;
+    }
+}
+
+/* A zeroed block of count * size bytes for a large table or buffer
+ * (alloc.c): from 1 MiB on, fresh 2 MiB-aligned pages the kernel may back
+ * with huge pages (*mapped = 1); smaller, or with a test allocator
+ * installed, from tt_calloc (*mapped = 0). NULL when out of memory. Freed
+ * with tti_free_large and the same count, size and mapped. */
+void *tti_alloc_large(size_t count, size_t size, int *mapped);
+void tti_free_large(void *p, size_t count, size_t size, int mapped);
+
 #endif

@@ -482,12 +482,34 @@ static void test_total_only_equals_merged_tables(void **state)
     }
     want[m] = '\0';
     assert_true(m > 100000);
-    for (int j = 1; j <= 2; j++) {
+    for (int j = 1; j <= 3; j++) {
         snprintf(args, sizeof args, "count --total-only --quiet -j %d %s", j, dir);
         assert_int_equal(run(args), 0);
         char *got = out_text();
         assert_string_equal(got, want);
         free(got);
+    }
+    /* With more than one thread the partial tables are sorted together,
+     * never merged, and the rows formatted in parts (one per thread): the
+     * same rows in every format, with --top, --min-count and --per cutting
+     * inside a part. */
+    static const char *const variants[] = {
+        "--format csv", "--format jsonl --per 1000", "--min-count 3", "--top 25001",
+    };
+    for (size_t v = 0; v < sizeof variants / sizeof *variants; v++) {
+        snprintf(args, sizeof args, "count --total-only --quiet -j 1 %s %s", variants[v], dir);
+        assert_int_equal(run(args), 0);
+        char *one = out_text();
+        assert_true(strlen(one) > 100000);
+        for (int j = 2; j <= 3; j++) {
+            snprintf(args, sizeof args, "count --total-only --quiet -j %d %s %s", j, variants[v],
+                     dir);
+            assert_int_equal(run(args), 0);
+            char *got = out_text();
+            assert_string_equal(got, one);
+            free(got);
+        }
+        free(one);
     }
     /* The table (over 1 MiB, so written out in pieces as it is formatted)
      * is whole: ranks run 1, 2, 3, ... and each cum_count is the one

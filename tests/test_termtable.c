@@ -100,6 +100,84 @@ static void test_sorted_against_qsort(void **state)
     tt_termtable_free(t);
 }
 
+/* tt_termtable_sorted_union against the reference order (reference_cmp
+ * under qsort) of the tables' sum built plainly with tt_termtable_add: 1 to
+ * 5 tables drawing from one pool of terms (so most terms are in several),
+ * terms sharing 8-byte prefixes and holding bytes 0x80-0xff, counts from 1
+ * to past 2^40 (every digit of the count sort in use), empty tables among
+ * them; with 1, 2, 3 and 8 threads (a pool of 30,000 terms is large enough
+ * for the merge to be split into ranges). */
+static void test_sorted_union_against_reference(void **state)
+{
+    (void)state;
+    uint64_t x = 0x2545f4914f6cdd1dull;
+    static const char alphabet[] = { 'a', 'b', 'q', '-', '\x80', '\xe2', '\xff' };
+    for (int trial = 0; trial < 8; trial++) {
+        size_t ntables = 1 + (size_t)trial % 5, pool = trial < 4 ? 30000 : 1500;
+        tt_termtable *tables[6], *sum = tt_termtable_new();
+        assert_non_null(sum);
+        for (size_t t = 0; t < ntables; t++) {
+            tables[t] = tt_termtable_new();
+            assert_non_null(tables[t]);
+            if (trial == 6 && t == 1)
+                continue; /* an empty table among full ones */
+            for (size_t i = 0; i < pool; i++) {
+                x ^= x << 13;
+                x ^= x >> 7;
+                x ^= x << 17;
+                if (x % 3 == 0)
+                    continue; /* not every term in every table */
+                /* the term: its number in the pool, spelled to share prefixes */
+                char w[40];
+                size_t len = 0;
+                uint64_t id = (i * 0x9e3779b97f4a7c15ull) >> 20;
+                w[len++] = i % 2 ? 'a' : '\xc3';
+                for (int k = 0; k < 7 + (int)(id % 3); k++)
+                    w[len++] = alphabet[(id >> (k * 3)) % (k < 6 ? 2 : 7)];
+                len += (size_t)snprintf(w + len, sizeof w - len, "%zu", i);
+                uint64_t count = 1 + (x >> 61);
+                if (x % 17 == 0)
+                    count = (x >> 20) & ((1ull << 42) - 1);
+                if (count == 0)
+                    count = 1;
+                assert_int_equal(tt_termtable_add(tables[t], w, len, count), TT_OK);
+                assert_int_equal(tt_termtable_add(sum, w, len, count), TT_OK);
+            }
+        }
+        tt_term_entry *ref;
+        size_t n_ref;
+        assert_int_equal(tt_termtable_sorted(sum, &ref, &n_ref), TT_OK);
+        qsort(ref, n_ref, sizeof *ref, reference_cmp);
+        static const int threads[] = { 1, 2, 3, 8 };
+        for (size_t k = 0; k < sizeof threads / sizeof *threads; k++) {
+            tt_term_entry *e;
+            size_t n;
+            assert_int_equal(tt_termtable_sorted_union((const tt_termtable *const *)tables,
+                                                       ntables, threads[k], &e, &n),
+                             TT_OK);
+            assert_int_equal(n, n_ref);
+            for (size_t i = 0; i < n; i++) {
+                assert_int_equal(e[i].len, ref[i].len);
+                assert_memory_equal(e[i].term, ref[i].term, ref[i].len);
+                assert_int_equal(e[i].count, ref[i].count);
+            }
+            tt_free(e);
+        }
+        tt_free(ref);
+        for (size_t t = 0; t < ntables; t++)
+            tt_termtable_free(tables[t]);
+        tt_termtable_free(sum);
+    }
+    /* no tables, and too many */
+    tt_term_entry *e;
+    size_t n = 99;
+    assert_int_equal(tt_termtable_sorted_union(NULL, 0, 2, &e, &n), TT_OK);
+    assert_int_equal(n, 0);
+    tt_free(e);
+    const tt_termtable *many[65] = { 0 };
+    assert_int_equal(tt_termtable_sorted_union(many, 65, 1, &e, &n), TT_EINVAL);
+}
+
 /* Many distinct terms force several growths; every count must survive. */
 static void test_growth_and_merge(void **state)
 {
@@ -157,7 +235,7 @@ static void test_out_of_memory(void **state)
     (void)state;
     tt_allocator a = { failing_malloc, failing_realloc, free };
     int saw_enomem = 0;
-    for (fail_at = 1; fail_at < 60; fail_at++) {
+    for (fail_at = 1; fail_at < 80; fail_at++) {
         calls = 0;
         tt_set_allocator(&a);
         tt_termtable *t = tt_termtable_new();
@@ -174,6 +252,18 @@ static void test_out_of_memory(void **state)
             if (st == TT_OK)
                 tt_free(e);
         }
+        if (st == TT_OK && t) {
+            /* the union sorts with buffers of its own, in two threads */
+            const tt_termtable *two[2] = { t, t };
+            tt_term_entry *e;
+            size_t n;
+            st = tt_termtable_sorted_union(two, 2, 2, &e, &n);
+            if (st == TT_OK) {
+                assert_int_equal(n, 3000);
+                assert_int_equal(e[0].count, 2);
+                tt_free(e);
+            }
+        }
         assert_true(st == TT_OK || st == TT_ENOMEM);
         if (st == TT_ENOMEM)
             saw_enomem = 1;
@@ -189,6 +279,7 @@ int main(void)
         cmocka_unit_test(test_add_get_sorted),
         cmocka_unit_test(test_ties_sorted_by_term),
         cmocka_unit_test(test_sorted_against_qsort),
+        cmocka_unit_test(test_sorted_union_against_reference),
         cmocka_unit_test(test_growth_and_merge),
         cmocka_unit_test(test_awkward_keys),
         cmocka_unit_test(test_out_of_memory),

@@ -62,6 +62,14 @@ typedef struct tt_batch_options {
      * not depend on the order, so the result is the same for any thread
      * count. */
     tt_termtable *total;
+    /* Optional, with total and more than one thread: the workers' partial
+     * tables are not merged into total but handed over here (tables[0..n),
+     * one per worker; the caller frees each with tt_termtable_free() and
+     * the array with tt_free()); the sum is then the union of total (which
+     * may hold counts too) and these, as tt_termtable_sorted_union() sorts
+     * it in parallel without a merged table. On failure nothing is handed
+     * over. */
+    tt_termtable_set *total_parts;
     /* Optional: analysis instead of counting. Each document goes to
      * `analyse` in a worker thread with that worker's own state (made by
      * worker_new and freed by worker_free, both in that thread; either may

@@ -15,6 +15,15 @@ typedef struct tt_term_entry {
     uint64_t count;
 } tt_term_entry;
 
+/* Several tables, e.g. partial sums (see tt_batch_options.total_parts). */
+typedef struct tt_termtable_set {
+    tt_termtable **tables;
+    size_t n;
+} tt_termtable_set;
+
+/* Frees every table of s and the array; s is left empty. */
+void tt_termtable_set_release(tt_termtable_set *s);
+
 /* Returns a new empty table, NULL when out of memory. The caller frees it
  * with tt_termtable_free(). The hash key is the process-wide seed (see
  * tt_termtable_set_seed), so hash order never leaks into output. */
@@ -44,6 +53,14 @@ tt_status tt_termtable_merge(tt_termtable *dst, const tt_termtable *src);
  * bytewise ascending, so output is deterministic. The caller frees *out with
  * tt_free(); the strings stay owned by the table. */
 tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t *n);
+
+/* The same for the union of ntables tables (at most 64), a term's counts
+ * added up, without building a merged table: what merging them all into
+ * one table and calling tt_termtable_sorted() gives. Uses up to threads
+ * threads (1: only the caller's). The strings stay owned by the tables,
+ * which must outlive *out. TT_EINVAL for more than 64 tables. */
+tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t ntables,
+                                    int threads, tt_term_entry **out, size_t *n);
 
 /* Calls fn for every entry in unspecified order; stop by returning non-zero. */
 void tt_termtable_foreach(const tt_termtable *t,

@@ -181,6 +181,13 @@ tt_status cli_flush(tt_outfile *out, tt_buf *buf, tt_error *err, int force);
 tt_status cli_write_term_rows(tt_table_writer *w, const char *doc, const tt_termtable *t,
                               uint64_t top, uint64_t min_count, uint64_t per,
                               tt_outfile *flush_to, tt_error *err);
+/* The same for entries e[0..n) sorted as tt_termtable_sorted() sorts
+ * them, total their counts' sum; with flush_to and threads > 1, a large
+ * table's later rows are formatted in up to threads threads, each into a
+ * buffer of its own, and written in order after the first part. */
+tt_status cli_write_entry_rows(tt_table_writer *w, const char *doc, const tt_term_entry *e,
+                               size_t n, uint64_t total, uint64_t top, uint64_t min_count,
+                               uint64_t per, int threads, tt_outfile *flush_to, tt_error *err);
 
 /* The run of a command whose rows an analysis writes (readability,
  * sections): opens the output (atomic), writes the header unless

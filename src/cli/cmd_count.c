@@ -63,6 +63,7 @@ typedef struct count_ctx {
     show_kind show;
     uint64_t top, min_count, per;
     int total, total_only, header;
+    tt_termtable_set parts; /* --total-only: the workers' partial sums */
     tt_format format;
     tt_termtable *all;
     tt_outfile out;
@@ -118,6 +119,33 @@ static tt_status write_terms(const count_ctx *c, tt_buf *out, const char *doc,
     tt_status st = begin(c, &w, out, 0);
     return st ? st
               : cli_write_term_rows(&w, doc, t, c->top, c->min_count, c->per, flush_to, err);
+}
+
+/* The total's rows from the workers' partial tables (and c->all, which
+ * holds what the index replayed, if anything), sorted together in the
+ * batch's threads and never merged into one table. */
+static tt_status write_total_terms(count_ctx *c)
+{
+    const tt_termtable *tables[65];
+    size_t n = 0;
+    uint64_t total = 0;
+    tables[n++] = c->all;
+    for (size_t i = 0; i < c->parts.n && n < 65; i++)
+        tables[n++] = c->parts.tables[i];
+    for (size_t i = 0; i < n; i++)
+        total += tt_termtable_total(tables[i]);
+    int threads = c->pipe.batch.threads;
+    tt_term_entry *e = NULL;
+    size_t rows = 0;
+    tt_table_writer w;
+    tt_status st = n > 64 ? TT_EINVAL : begin(c, &w, &c->buf, 0);
+    if (!st)
+        st = tt_termtable_sorted_union(tables, n, threads, &e, &rows);
+    if (!st)
+        st = cli_write_entry_rows(&w, "*", e, rows, total, c->top, c->min_count, c->per, threads,
+                                  &c->out, &c->err);
+    tt_free(e);
+    return st;
 }
 
 static tt_status write_classes(const count_ctx *c, tt_buf *out, const char *doc,
@@ -341,6 +369,8 @@ int tt_cmd_count(int argc, char **argv)
     c.pipe.batch.prepare = prepare;
     if (c.total_only)
         c.pipe.batch.total = c.all;
+    if (c.total_only && c.show == SHOW_TERMS)
+        c.pipe.batch.total_parts = &c.parts; /* sorted together, never merged */
     c.pipe.batch.ctx = &c;
 
     tt_batch_summary sum;
@@ -351,7 +381,10 @@ int tt_cmd_count(int argc, char **argv)
         st = header_once(&c);
         if (!st) {
             switch (c.show) {
-            case SHOW_TERMS: st = write_terms(&c, &c.buf, "*", c.all, &c.out, &c.err); break;
+            case SHOW_TERMS:
+                st = c.parts.n ? write_total_terms(&c) :
+                                 write_terms(&c, &c.buf, "*", c.all, &c.out, &c.err);
+                break;
             case SHOW_CLASSES: st = write_classes(&c, &c.buf, "*", c.all); break;
             case SHOW_SUMMARY:
                 st = write_summary(&c, &c.buf, "*", "all", "", "", &c.all_stats, c.all);
@@ -374,6 +407,7 @@ int tt_cmd_count(int argc, char **argv)
     rc = sum.skipped ? TT_EXIT_TROUBLE : TT_EXIT_OK;
 out:
     tt_termtable_free(c.all);
+    tt_termtable_set_release(&c.parts);
     tt_buf_release(&c.buf);
     tt_source_list_release(&inputs);
     cli_pipeline_release(&c.pipe);
