@@ -592,17 +592,17 @@ static inline int is_mid(unsigned prop)
 /* The fastest path, for the commonest tokens: runs of [A-Za-z0-9_] from p
  * (whose byte is one), joined across Mid* characters followed by an ASCII
  * letter or digit as ascii_word_end joins them ("U.S", "1,200.50",
- * "company\u2019s"), up to a character that cannot join and is no hyphen
- * (a hyphen may join the next part): the token is then the one
+ * "company\u2019s") and across a hyphen followed by one ("long-term"), up
+ * to a character that cannot join: the token is then the one
  * ascii_word_end and the hyphen loop of tt_tokenizer_next find. After it, a
  * space or LF, or one ASCII punctuation character (not CR) and a space or
  * LF, are stepped over too ("rose, ", "year.\n"): an LF is a segment alone
  * (WB3a), so is a single space before an ASCII byte (WB3d joins spaces
  * only) and so is the punctuation, and only a terminal among them matters;
- * otherwise the walk goes on at the token's end. Anything else (a Mid*
- * character before non-ASCII, a mark, a hyphen, an over-long run) returns
- * 0, having changed nothing but the chunk masks, and the full walk
- * decides. */
+ * otherwise the walk goes on at the token's end. Anything
+ * else (a Mid* character before non-ASCII, a mark, a hyphen before no
+ * letter or digit, an over-long run) returns 0, having changed nothing but
+ * the chunk masks, and the full walk decides. */
 __attribute__((always_inline)) static inline int
 fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t p,
            tt_token *restrict tok)
@@ -627,8 +627,19 @@ fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t 
         size_t n = 1;
         unsigned prop;
         if (c < 0x80) {
-            if (c == '-')
-                return 0;
+            if (c == '-') {
+                /* token, hyphen, token ("year-over-year"): joined as the
+                 * hyphen loop of tt_tokenizer_next joins them when the
+                 * token so far starts with a letter or digit (so holds
+                 * one) and an ASCII letter or digit follows the hyphen
+                 * (the segment after it is a token); anything else there
+                 * is left to it */
+                if (!(tti_wb_ascii_run[s[e + 1]] & (TTI_WB_LETTER | TTI_WB_RUN_DIGIT)) ||
+                    !(tti_wb_ascii_run[s[p]] & (TTI_WB_LETTER | TTI_WB_RUN_DIGIT)))
+                    return 0;
+                q = e + 1;
+                continue;
+            }
             prop = tti_wb_stage2[c] & TTI_WB_PROP_MASK;
         } else {
             if (hyphen_len(s + e, len - e))
