@@ -57,6 +57,7 @@
 
 #include <pthread.h>
 
+#include "termtide/simd.h"
 #include "tt_internal.h"
 
 #include "termtide/segment.h"
@@ -341,6 +342,36 @@ static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 }
 #endif
 
+#if TTI_SIMD_WIDE
+#include <immintrin.h>
+/* The same masks 32 bytes at a time (AVX2, where the CPU has it). */
+__attribute__((target("avx2"))) static inline uint32_t in_range32(__m256i v, int lo, int span)
+{
+    __m256i d = _mm256_add_epi8(v, _mm256_set1_epi8((char)(0x80 - lo)));
+    return (uint32_t)_mm256_movemask_epi8(_mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + span)), d));
+}
+
+__attribute__((target("avx2"))) static void chunk_masks_avx2(tt_tokenizer *t, const unsigned char *c)
+{
+    uint64_t w = 0, st = 0;
+    for (int k = 0; k < 2; k++) {
+        __m256i v = _mm256_loadu_si256((const __m256i *)(const void *)(c + 32 * k));
+        uint64_t word = in_range32(_mm256_or_si256(v, _mm256_set1_epi8(0x20)), 'a', 26) |
+                        in_range32(v, '0', 10) |
+                        (uint32_t)_mm256_movemask_epi8(_mm256_cmpeq_epi8(v, _mm256_set1_epi8('_')));
+        __m256i other = _mm256_or_si256(
+            _mm256_or_si256(_mm256_cmpeq_epi8(v, _mm256_set1_epi8('.')),
+                            _mm256_cmpeq_epi8(v, _mm256_set1_epi8('!'))),
+            _mm256_or_si256(_mm256_cmpeq_epi8(v, _mm256_set1_epi8('?')),
+                            _mm256_cmpeq_epi8(v, _mm256_set1_epi8('\r'))));
+        w |= word << (32 * k);
+        st |= (word | (uint32_t)_mm256_movemask_epi8(_mm256_or_si256(v, other))) << (32 * k);
+    }
+    t->m_word = w;
+    t->m_stop = st;
+}
+#endif
+
 /* Makes the masks of the chunk holding position p current; returns p's bit
  * index in them. */
 static inline unsigned chunk_at(tt_tokenizer *t, size_t p)
@@ -352,14 +383,21 @@ static inline unsigned chunk_at(tt_tokenizer *t, size_t p)
         t->chunk = base;
 #if defined(__SSE2__)
         if (tti_use_simd) {
-            if (n >= 64) {
-                chunk_masks_sse2(t, c);
-                return (unsigned)(p - base);
+            unsigned char pad[64];
+            if (n < 64) {
+                /* the text's last chunk, padded with NUL, a byte of no mask */
+                memset(pad, 0, sizeof pad);
+                memcpy(pad, c, n);
+                c = pad;
             }
-            /* the text's last chunk, padded with NUL, a byte of no mask */
-            unsigned char pad[64] = { 0 };
-            memcpy(pad, c, n);
-            chunk_masks_sse2(t, pad);
+#if TTI_SIMD_WIDE
+            if (t->wide)
+                chunk_masks_avx2(t, c);
+            else
+#endif
+                chunk_masks_sse2(t, c);
+            if (n >= 64)
+                return (unsigned)(p - base);
             t->m_stop |= ~(uint64_t)0 << n;
             return (unsigned)(p - base);
         }
@@ -420,6 +458,7 @@ void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len)
     t->pending_suffix = 0;
     t->chunk = (size_t)-1;
     t->m_word = t->m_stop = 0;
+    t->wide = tti_simd_level() >= TT_SIMD_AVX2;
 }
 
 /* Abbreviations whose period never ends a sentence: titles, "No.", "U.S.",

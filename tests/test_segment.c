@@ -541,16 +541,20 @@ static void random_against_reference(int cases, size_t maxch, uint32_t x)
 
 /* Short texts, and texts long enough to cross the tokenizer's 64-byte chunks
  * (with words and separator runs across their edges), with the chunk masks
- * made by SSE2 and by the portable code. */
+ * made by AVX2 (where the CPU has it), by SSE2 and by the portable code. */
 static void test_random_against_reference(void **state)
 {
     (void)state;
     int simd = tt_simd(1);
-    for (int mode = 0; mode < 2; mode++) {
-        tt_simd(mode == 0);
+    for (int mode = 0; mode < 3; mode++) {
+        tt_simd(mode < 2);
+        int level = tt_simd_level(mode == 0 ? TT_SIMD_AVX2 : TT_SIMD_SSE2);
+        if (mode == 0 && level != TT_SIMD_AVX2)
+            continue; /* no AVX2 here */
         random_against_reference(20000, 40, 2025u);
         random_against_reference(3000, 400, 77u);
     }
+    tt_simd_level(TT_SIMD_AVX2);
     tt_simd(simd);
 }
 

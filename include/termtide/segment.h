@@ -64,6 +64,7 @@ typedef struct tt_tokenizer {
      * text[chunk + i]: filled on demand, as the walk reaches a chunk. */
     size_t chunk;              /* offset of the chunk, (size_t)-1 none yet */
     unsigned long long m_word, m_stop;
+    int wide;                  /* the masks made with AVX2 */
 } tt_tokenizer;
 
 void tt_tokenizer_init(tt_tokenizer *t, const char *text, size_t len);

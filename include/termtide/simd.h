@@ -3,9 +3,9 @@
  * The stages that classify bytes in bulk (plain-text extraction, the
  * tokenizer, search's pair scan) use SSE2 where the compiler targets it, as on every x86-64,
  * and portable code elsewhere; both give the same output. Search's pair
- * scan also has SSSE3 and AVX2 versions, compiled in on x86 and used only
- * where the CPU has those instructions (asked at run time); every version
- * gives the same output. */
+ * scan also has SSSE3 and AVX2 versions, and the tokenizer's byte classes
+ * an AVX2 one, compiled in on x86 and used only where the CPU has those
+ * instructions (asked at run time); every version gives the same output. */
 #ifndef TT_SIMD_H
 #define TT_SIMD_H
 
