@@ -292,8 +292,9 @@ void tt_counter_free(tt_counter *c)
     tt_free(c);
 }
 
-/* Counts the n-grams that end at the newest window token. */
-static tt_status emit_grams(tt_counter *c, tt_termtable *table, tt_doc_stats *st)
+/* Counts the n-grams that end at the newest window token (*added: how
+ * many). */
+static tt_status emit_grams(tt_counter *c, tt_termtable *table, size_t *added)
 {
     size_t newest = (c->win_head + c->win_len - 1) % MAX_N;
     if (!c->win[newest].edge_ok)
@@ -325,7 +326,7 @@ static tt_status emit_grams(tt_counter *c, tt_termtable *table, tt_doc_stats *st
         tt_status s = tt_termtable_add(table, term, len, 1);
         if (s)
             return s;
-        st->terms_kept++;
+        (*added)++;
     }
     return TT_OK;
 }
@@ -646,6 +647,11 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
     uint64_t keys[BATCH][2];
     ascii_set *sets[BATCH]; /* NULL: not for the ASCII cache */
     size_t n_toks = 0, next_tok = 0;
+    /* the stats in locals, written back at the end (stores through the
+     * cache's pointers would otherwise make every increment a memory
+     * update) */
+    uint64_t words = 0, sentences = 0, numbers = 0, kept = 0, stopwords = 0, shorts = 0,
+             overlong = 0;
 
     tt_tokenizer_init(&tk, text, len);
     c->win_len = 0;
@@ -669,14 +675,14 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         }
         const size_t ti = next_tok++;
         const tt_token *tok = &toks[ti];
-        st->words_read++;
+        words++;
         if (tok->sentence_start) {
-            st->sentences++;
+            sentences++;
             c->win_len = 0;
             c->win_head = 0;
         }
         if (tok->kind == TT_TOKEN_NUMBER) {
-            st->numbers++;
+            numbers++;
             if (!keep_numbers) {
                 c->win_len = 0;
                 c->win_head = 0;
@@ -695,11 +701,11 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         if (w) {
             if (!w->flags && unigram_only) {
                 /* A kept term: a pending hit (see the cache's comment). */
-                st->terms_kept++;
+                kept++;
                 if (w->pending++ == 0)
                     dirty_mark(&c->dirty, (uint32_t)(w - &ascii[0].way[0]) / 2);
                 else if (w->pending == UINT32_MAX && (s = way_flush(w, table))) {
-                    return s;
+                    goto out;
                 }
                 continue;
             }
@@ -711,7 +717,7 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
             if (c->fill_status) {
                 s = c->fill_status;
                 c->fill_status = TT_OK;
-                return s;
+                goto out;
             }
             s = resolve_general(c, text + tok->off, tok->len, tok->kind, table, &c->general);
             if (s == TT_ELIMIT && !c->fill_status) {
@@ -719,22 +725,22 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                  * becomes 18 characters); a term past the buffer cap is
                  * skipped like an overlong token, never allowed to fail
                  * the document. */
-                st->overlong++;
+                overlong++;
                 c->win_len = 0;
                 c->win_head = 0;
                 continue;
             }
             if (s) {
                 c->fill_status = TT_OK;
-                return s;
+                goto out;
             }
             cache_entry *e = c->general.entry;
             if (e && !e->flags && unigram_only) {
-                st->terms_kept++;
+                kept++;
                 if (e->pending++ == 0)
                     dirty_mark(&c->gdirty, (uint32_t)(e - c->cache));
                 else if (e->pending == UINT32_MAX && (s = entry_flush(e, table)))
-                    return s;
+                    goto out;
                 continue;
             }
             term = c->general.term;
@@ -747,9 +753,9 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
             if (flags & CACHE_EMPTY)
                 continue;
             if (flags & CACHE_STOP)
-                st->stopwords++;
+                stopwords++;
             else
-                st->short_words++; /* CACHE_SHORT */
+                shorts++; /* CACHE_SHORT */
             if (unigram_only)
                 continue;
             edge_ok = 0;
@@ -757,18 +763,28 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
         if (unigram_only) {
             s = tti_termtable_add_hashed(table, term, tlen, h, 1);
             if (s)
-                return s;
-            st->terms_kept++;
+                goto out;
+            kept++;
             continue;
         }
+        size_t grams = 0;
         s = push_window(c, term, tlen, edge_ok);
         if (!s)
-            s = emit_grams(c, table, st);
+            s = emit_grams(c, table, &grams);
+        kept += grams;
         if (s)
-            return s;
+            goto out;
     }
-    st->overlong += tk.overlong;
-    return TT_OK;
+    s = TT_OK;
+out:
+    st->words_read += words;
+    st->sentences += sentences;
+    st->numbers += numbers;
+    st->terms_kept += kept;
+    st->stopwords += stopwords;
+    st->short_words += shorts;
+    st->overlong += overlong + tk.overlong;
+    return s;
 }
 
 tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks,
