@@ -5,7 +5,8 @@
  * white space, LF, CR, or 0xC2 (the lead byte of U+00A0 NO-BREAK SPACE, which
  * counts as white space when followed by 0xA0). Runs of ordinary bytes, with
  * the single spaces between words, are copied in one memcpy (the ASCII fast
- * path; skip_ordinary() finds a run's end 16 bytes at a time with SSE2);
+ * path; skip_ordinary() finds a run's end 16 bytes at a time with SSE2, 32
+ * with AVX2 where the CPU has it);
  * every other white-space run is collapsed while counting the line
  * breaks in it:
  *   - two or more line breaks (a blank line, even one holding spaces or
@@ -30,7 +31,11 @@
 #include <utf8proc.h>
 
 #include "termtide/extract.h"
+#include "termtide/simd.h"
 #include "tt_internal.h"
+#if TTI_SIMD_WIDE
+#include <immintrin.h>
+#endif
 
 enum { C_TEXT = 0, C_SPACE, C_LF, C_CR, C_C2 };
 
@@ -84,11 +89,47 @@ static int starts_with_letter(const unsigned char *s, size_t n)
  * never the second byte of such a pair, so the loop may resume there.
  * SSE2 (the x86-64 baseline): 16 bytes per step, 1/16 of the table lookups
  * of the loop; elsewhere it returns j and the loop does all the work. */
+#if TTI_SIMD_WIDE
+/* The same 32 bytes per step (AVX2, where the CPU has it); returns where
+ * it stopped, or the first position it did not look at. */
+__attribute__((target("avx2"))) static size_t skip_ordinary_avx2(const unsigned char *s,
+                                                                 size_t len, size_t j)
+{
+    const __m256i lo = _mm256_set1_epi8(8), hi = _mm256_set1_epi8(14);
+    const __m256i sp = _mm256_set1_epi8(' '), c2 = _mm256_set1_epi8((char)0xC2);
+    const __m256i a0 = _mm256_set1_epi8((char)0xA0);
+    while (j + 33 <= len) {
+        __m256i v = _mm256_loadu_si256((const __m256i *)(const void *)(s + j));
+        __m256i w = _mm256_loadu_si256((const __m256i *)(const void *)(s + j + 1));
+        __m256i ctl_v = _mm256_and_si256(_mm256_cmpgt_epi8(v, lo), _mm256_cmpgt_epi8(hi, v));
+        __m256i ctl_w = _mm256_and_si256(_mm256_cmpgt_epi8(w, lo), _mm256_cmpgt_epi8(hi, w));
+        __m256i odd_w = _mm256_or_si256(ctl_w, _mm256_or_si256(_mm256_cmpeq_epi8(w, sp),
+                                                               _mm256_cmpeq_epi8(w, c2)));
+        __m256i stop = _mm256_or_si256(
+            ctl_v,
+            _mm256_or_si256(_mm256_and_si256(_mm256_cmpeq_epi8(v, c2), _mm256_cmpeq_epi8(w, a0)),
+                            _mm256_and_si256(_mm256_cmpeq_epi8(v, sp), odd_w)));
+        unsigned m = (unsigned)_mm256_movemask_epi8(stop);
+        if (m)
+            return j + (size_t)__builtin_ctz(m);
+        j += 32;
+    }
+    return j;
+}
+#endif
+
 static size_t skip_ordinary(const unsigned char *s, size_t len, size_t j)
 {
 #if defined(__SSE2__)
     if (!tti_use_simd)
         return j;
+#if TTI_SIMD_WIDE
+    if (tti_simd_level() >= TT_SIMD_AVX2) {
+        j = skip_ordinary_avx2(s, len, j);
+        if (j + 33 <= len)
+            return j; /* a stop; else the last bytes below */
+    }
+#endif
     const __m128i lo = _mm_set1_epi8(8), hi = _mm_set1_epi8(14);
     const __m128i sp = _mm_set1_epi8(' '), c2 = _mm_set1_epi8((char)0xC2);
     const __m128i a0 = _mm_set1_epi8((char)0xA0);
