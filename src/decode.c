@@ -49,13 +49,18 @@
  * characters into the text.
  *
  * Speed: the validating pass reads 16 bytes at a time while they are ASCII
- * and free of NUL, one word test for both; valid UTF-8 is then copied with
+ * and free of NUL, one word test for both (32 with AVX2 where the CPU has
+ * it); valid UTF-8 is then copied with
  * one memcpy. The other decoders first count their exact output size, so
  * the output buffer is allocated once and the caller's limit is checked on
  * the real size. */
 #include <stdint.h>
+#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__)
+#include <immintrin.h>
+#endif
 
 #include "termtide/decode.h"
+#include "termtide/simd.h"
 #include "tt_internal.h"
 
 const char *tt_encoding_name(tt_encoding enc)
@@ -170,6 +175,25 @@ static size_t utf8_seq(const unsigned char *p, size_t n, size_t *bad)
     return need;
 }
 
+#if TTI_SIMD_WIDE
+/* The same 32 bytes per step (AVX2, where the CPU has it): a byte is
+ * plain ASCII when its high bit is clear and it is not zero. */
+__attribute__((target("avx2"))) static size_t ascii_run_avx2(const unsigned char *p, size_t n)
+{
+    size_t i = 0;
+    const __m256i zero = _mm256_setzero_si256();
+    while (i + 32 <= n) {
+        __m256i v = _mm256_loadu_si256((const __m256i *)(const void *)(p + i));
+        unsigned m = (unsigned)_mm256_movemask_epi8(v) |
+                     (unsigned)_mm256_movemask_epi8(_mm256_cmpeq_epi8(v, zero));
+        if (m)
+            return i + (size_t)__builtin_ctz(m);
+        i += 32;
+    }
+    return i + ascii_run(p + i, n - i);
+}
+#endif
+
 typedef struct utf8_scan {
     size_t invalid;       /* I: maximal subparts */
     size_t invalid_bytes; /* bytes inside them */
@@ -182,8 +206,15 @@ static void scan_utf8(const unsigned char *p, size_t n, utf8_scan *s)
     s->invalid = s->invalid_bytes = s->multibyte = 0;
     s->nul_at = SIZE_MAX;
     size_t i = 0;
+#if TTI_SIMD_WIDE
+    const int wide = tti_simd_level() >= TT_SIMD_AVX2;
+#endif
     while (i < n) {
+#if TTI_SIMD_WIDE
+        i += wide ? ascii_run_avx2(p + i, n - i) : ascii_run(p + i, n - i);
+#else
         i += ascii_run(p + i, n - i);
+#endif
         if (i >= n)
             break;
         if (p[i] == 0) {

@@ -15,6 +15,7 @@
 
 #include "termtide/alloc.h"
 #include "termtide/decode.h"
+#include "termtide/simd.h"
 
 /* ---- Python reference ------------------------------------------------------ */
 
@@ -357,6 +358,39 @@ static void test_maximal_subparts_against_python(void **state)
     compare_with_python(cases, 400, "b.decode('utf-8-sig','replace')", TT_ENC_UTF8_BOM, 1);
 }
 
+/* Long ASCII runs (so the 32- and 16-byte run finders take whole steps)
+ * between the awkward bytes of the test above, after a UTF-8 BOM, against
+ * Python's utf-8-sig codec: with the AVX2 run finder (where the CPU has
+ * it) and with the word-at-a-time one. */
+static void test_long_runs_against_python(void **state)
+{
+    (void)state;
+    static ref_case cases[300];
+    uint32_t seed = 777;
+    static const unsigned char pool[] = { 0x80, 0xA0, 0xBF, 0xC2, 0xC3, 0xE0, 0xE2, 0xED,
+                                          0xF0, 0xF4, 0xFF, 0xA9, 0x99 };
+    for (size_t i = 0; i < 300; i++) {
+        ref_case *c = &cases[i];
+        c->n = 0;
+        c->in[c->n++] = 0xEF;
+        c->in[c->n++] = 0xBB;
+        c->in[c->n++] = 0xBF;
+        while (c->n < 180) {
+            seed = seed * 1103515245u + 12345u;
+            size_t run = (seed >> 16) % 71;
+            for (size_t k = 0; k < run; k++)
+                c->in[c->n++] = (unsigned char)(k % 7 == 6 ? ' ' : 'a' + (seed >> (k % 9)) % 26);
+            seed = seed * 1103515245u + 12345u;
+            c->in[c->n++] = pool[(seed >> 16) % sizeof pool];
+        }
+    }
+    for (int level = TT_SIMD_AVX2; level >= TT_SIMD_SSE2; level -= TT_SIMD_AVX2 - TT_SIMD_SSE2) {
+        tt_simd_level(level);
+        compare_with_python(cases, 300, "b.decode('utf-8-sig','replace')", TT_ENC_UTF8_BOM, 1);
+    }
+    tt_simd_level(TT_SIMD_AVX2);
+}
+
 static void test_binary(void **state)
 {
     (void)state;
@@ -369,15 +403,17 @@ static void test_binary(void **state)
     assert_string_equal(err.message, "binary file (NUL bytes at offset 4)");
     assert_string_equal(err.file, "doc.txt");
     /* The NUL found past the 16-byte fast path too. */
-    /* A NUL at every position of the 16- and 8-byte fast paths and the
-     * tail, after ASCII and after a multi-byte character. */
-    for (int lead = 0; lead < 2; lead++) {
+    /* A NUL at every position of the 32-, 16- and 8-byte fast paths and
+     * the tail, after ASCII and after a multi-byte character; with the
+     * AVX2 run finder (where the CPU has it) and without. */
+    for (int lead = 0; lead < 4; lead++) {
+        tt_simd_level(lead < 2 ? TT_SIMD_AVX2 : TT_SIMD_SSE2);
         for (size_t at = 0; at < 100; at++) {
             char big[100], want[64];
             memset(big, 'a', sizeof big);
-            if (lead)
+            if (lead % 2)
                 memcpy(big, "\xc3\xa9", 2);
-            if (lead && at < 2)
+            if (lead % 2 && at < 2)
                 continue;
             big[at] = '\0';
             assert_int_equal(dec(big, sizeof big, &out, &info, &err), TT_EBINARY);
@@ -385,6 +421,7 @@ static void test_binary(void **state)
             assert_string_equal(err.message, want);
         }
     }
+    tt_simd_level(TT_SIMD_AVX2);
     /* PNG signature (ISO/IEC 15948 section 5.2). */
     static const char png[] = "\x89PNG\r\n\x1a\n\x00\x00\x00\x0dIHDR";
     assert_int_equal(dec(png, sizeof png - 1, &out, &info, &err), TT_EBINARY);
@@ -569,6 +606,7 @@ int main(void)
         cmocka_unit_test(test_utf8_with_stray_bytes),
         cmocka_unit_test(test_rule_boundary),
         cmocka_unit_test(test_maximal_subparts_against_python),
+        cmocka_unit_test(test_long_runs_against_python),
         cmocka_unit_test(test_binary),
         cmocka_unit_test(test_output_limit),
         cmocka_unit_test(test_decode_in_place),
