@@ -632,8 +632,11 @@ static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_
 /* Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
  * each one's cache key and set are worked out and the set's line is
  * prefetched, then the batch is counted in order. The lookups of a batch
- * then wait for memory together instead of one after another. */
-#define BATCH 16
+ * then wait for memory together instead of one after another. 64 tokens
+ * (about 450 bytes of text) ran 4% faster here than 16 and as fast as 128:
+ * a set's line has longer to arrive, and the tokenizer is called less
+ * often. */
+#define BATCH 64
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
                              tt_termtable *table, tt_doc_stats *st)
