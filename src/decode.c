@@ -56,7 +56,7 @@
  * the real size. */
 #include <stdint.h>
 #if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__)
-#include <immintrin.h>
+#include <immintrin.h> /* the AVX2 version (TTI_SIMD_WIDE) */
 #endif
 
 #include "termtide/decode.h"

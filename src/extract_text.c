@@ -27,15 +27,15 @@
 #if defined(__SSE2__)
 #include <emmintrin.h>
 #endif
+#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__)
+#include <immintrin.h> /* the AVX2 version (TTI_SIMD_WIDE) */
+#endif
 
 #include <utf8proc.h>
 
 #include "termtide/extract.h"
 #include "termtide/simd.h"
 #include "tt_internal.h"
-#if TTI_SIMD_WIDE
-#include <immintrin.h>
-#endif
 
 enum { C_TEXT = 0, C_SPACE, C_LF, C_CR, C_C2 };
 

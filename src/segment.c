@@ -54,6 +54,9 @@
 #if defined(__SSE2__)
 #include <emmintrin.h>
 #endif
+#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__)
+#include <immintrin.h> /* the AVX2 version (TTI_SIMD_WIDE) */
+#endif
 
 #include <pthread.h>
 
@@ -343,7 +346,6 @@ static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 #endif
 
 #if TTI_SIMD_WIDE
-#include <immintrin.h>
 /* The same masks 32 bytes at a time (AVX2, where the CPU has it). */
 __attribute__((target("avx2"))) static inline uint32_t in_range32(__m256i v, int lo, int span)
 {
