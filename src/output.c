@@ -27,17 +27,31 @@ tt_status tt_format_parse(const char *name, tt_format *out)
     return TT_OK;
 }
 
+/* Decimal digits two at a time from a table of "00".."99". */
+static const char digit_pairs[201] = "00010203040506070809101112131415161718192021222324252627282930"
+                                     "31323334353637383940414243444546474849505152535455565758596061"
+                                     "62636465666768697071727374757677787980818283848586878889909192"
+                                     "93949596979899";
+
 static size_t put_u64(uint64_t v, char *out)
 {
-    char tmp[24];
-    size_t n = 0;
-    do {
-        tmp[n++] = (char)('0' + v % 10);
-        v /= 10;
-    } while (v);
-    for (size_t i = 0; i < n; i++)
-        out[i] = tmp[n - 1 - i];
-    out[n] = '\0';
+    size_t n = 1;
+    for (uint64_t t = v; t >= 10; t /= 10)
+        n++;
+    char *p = out + n;
+    *p = '\0';
+    while (v >= 100) {
+        unsigned d = (unsigned)(v % 100) * 2;
+        v /= 100;
+        *--p = digit_pairs[d + 1];
+        *--p = digit_pairs[d];
+    }
+    if (v >= 10) {
+        *--p = digit_pairs[v * 2 + 1];
+        *--p = digit_pairs[v * 2];
+    } else {
+        *--p = (char)('0' + v);
+    }
     return n;
 }
 
@@ -269,28 +283,42 @@ tt_status tt_table_cstr(tt_table_writer *w, const char *s)
     return tt_table_str(w, s, strlen(s));
 }
 
+/* A cell of n bytes needing no quoting or escaping (a number) at num[1..],
+ * num[0] free for the separator: TSV and CSV take it in one append. */
+static tt_status put_plain_cell(tt_table_writer *w, char *num, size_t n)
+{
+    if (w->format == TT_FORMAT_JSONL) {
+        tt_status st = cell_start(w);
+        return st ? st : tt_buf_append(w->out, num + 1, n);
+    }
+    if (!w->col++)
+        return tt_buf_append(w->out, num + 1, n);
+    num[0] = w->format == TT_FORMAT_CSV ? ',' : '\t';
+    return tt_buf_append(w->out, num, n + 1);
+}
+
 tt_status tt_table_u64(tt_table_writer *w, uint64_t v)
 {
-    char num[24];
-    size_t n = put_u64(v, num);
-    tt_status st = cell_start(w);
-    return st ? st : tt_buf_append(w->out, num, n);
+    char num[25];
+    return put_plain_cell(w, num, put_u64(v, num + 1));
 }
 
 /* An undefined statistic (NaN) is the word "n/a" in TSV and CSV and null
  * in JSON Lines, never a number-like "nan". */
 tt_status tt_table_fixed(tt_table_writer *w, double v, int decimals)
 {
-    char num[40];
-    size_t n = tt_format_fixed(v, decimals, num);
+    char num[41];
+    if (isfinite(v))
+        return put_plain_cell(w, num, tt_format_fixed(v, decimals, num + 1));
+    size_t n = tt_format_fixed(v, decimals, num + 1);
     tt_status st = cell_start(w);
     if (st)
         return st;
-    if (w->format == TT_FORMAT_JSONL && !isfinite(v))
+    if (w->format == TT_FORMAT_JSONL)
         return tt_buf_puts(w->out, "null");
     if (isnan(v))
         return tt_buf_puts(w->out, "n/a");
-    return tt_buf_append(w->out, num, n);
+    return tt_buf_append(w->out, num + 1, n);
 }
 
 tt_status tt_table_sci(tt_table_writer *w, double v, int digits)

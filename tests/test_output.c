@@ -40,6 +40,47 @@ static void test_fixed(void **state)
 /* Scientific notation: the expected strings are what printf's %.3e and
  * %.Nf print for these values in the C locale (worked out by hand from the
  * definition, not taken from the code under test). */
+/* Whole numbers and fixed-point numbers in every format against the C
+ * library's printf ("%llu", "%.*f"; the C locale is in force in the tests):
+ * every digit count of a 64-bit number, and shares at 4 and 6 decimals
+ * between 0 and 1 as count writes them; each cell after a first one, so
+ * the separator is written with it. */
+static void test_numbers_against_printf(void **state)
+{
+    (void)state;
+    static const tt_format formats[] = { TT_FORMAT_TSV, TT_FORMAT_CSV, TT_FORMAT_JSONL };
+    static const char *const cols[] = { "a", "b" };
+    uint64_t x = 0x9e3779b97f4a7c15ull;
+    for (size_t f = 0; f < 3; f++) {
+        tt_buf out;
+        tt_buf_init(&out, 0);
+        for (int i = 0; i < 3000; i++) {
+            x ^= x << 13;
+            x ^= x >> 7;
+            x ^= x << 17;
+            uint64_t v = i < 64 ? (i < 20 ? (uint64_t)1 << (i * 3) : ~(uint64_t)0 >> (i - 20))
+                                : x >> (x % 64);
+            if (i % 10 == 0)
+                v = (uint64_t)i / 10 - 1 + (uint64_t)(i % 20 == 0); /* 0, 1, 9, 10, 99, ... */
+            double share = (double)(x % 1000003) / 1000003.0;
+            int dec = i % 2 ? 4 : 6;
+            tt_table_writer w;
+            tt_buf_reset(&out);
+            assert_int_equal(tt_table_begin(&w, formats[f], &out, cols, 2, 0), TT_OK);
+            assert_int_equal(tt_table_u64(&w, v), TT_OK);
+            assert_int_equal(tt_table_fixed(&w, share, dec), TT_OK);
+            assert_int_equal(tt_table_end_row(&w), TT_OK);
+            char want[128];
+            const char *fmt = formats[f] == TT_FORMAT_TSV   ? "%llu\t%.*f\n"
+                              : formats[f] == TT_FORMAT_CSV ? "%llu,%.*f\r\n"
+                                                            : "{\"a\":%llu,\"b\":%.*f}\n";
+            snprintf(want, sizeof want, fmt, (unsigned long long)v, dec, share);
+            assert_string_equal(out.data, want);
+        }
+        tt_buf_release(&out);
+    }
+}
+
 static void test_sci(void **state)
 {
     (void)state;
@@ -177,6 +218,7 @@ int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_fixed),
+        cmocka_unit_test(test_numbers_against_printf),
         cmocka_unit_test(test_sci),
         cmocka_unit_test(test_csv_roundtrip),
         cmocka_unit_test(test_jsonl_roundtrip),
