@@ -529,6 +529,34 @@ static void test_total_only_equals_merged_tables(void **state)
     free(all);
 }
 
+/* --total-only with more threads than the 64 tables sorted together
+ * (-j 80 over 80 documents, each worker with a partial of its own): the
+ * same table as -j 1. */
+static void test_total_only_many_threads(void **state)
+{
+    (void)state;
+    char args[1024], dir[512];
+    path_in(dir, sizeof dir, "many");
+    mkdir(dir, 0755);
+    for (int d = 0; d < 80; d++) {
+        char name[64], text[128];
+        snprintf(name, sizeof name, "many/doc%02d.txt", d);
+        int n = snprintf(text, sizeof text, "ledger%d accrual ledger%d reserve%d accrual\n", d,
+                         d % 7, d % 13);
+        write_file(name, text, (size_t)n);
+    }
+    snprintf(args, sizeof args, "count --total-only --quiet -j 1 %s", dir);
+    assert_int_equal(run(args), 0);
+    char *one = out_text();
+    assert_non_null(strstr(one, "*\t1\taccrual\t160\t"));
+    snprintf(args, sizeof args, "count --total-only --quiet -j 80 %s", dir);
+    assert_int_equal(run(args), 0);
+    char *many = out_text();
+    assert_string_equal(many, one);
+    free(many);
+    free(one);
+}
+
 static void test_usage_errors(void **state)
 {
     (void)state;
@@ -558,6 +586,7 @@ int main(void)
         cmocka_unit_test(test_odd_inputs),
         cmocka_unit_test(test_invariants_and_threads),
         cmocka_unit_test(test_total_only_equals_merged_tables),
+        cmocka_unit_test(test_total_only_many_threads),
         cmocka_unit_test(test_usage_errors),
     };
     return cmocka_run_group_tests(tests, setup, teardown);

@@ -126,19 +126,27 @@ static tt_status write_terms(const count_ctx *c, tt_buf *out, const char *doc,
  * batch's threads and never merged into one table. */
 static tt_status write_total_terms(count_ctx *c)
 {
-    const tt_termtable *tables[65];
+    /* at most 64 tables sorted together: partials past the 63rd (-j 64 and
+     * more) are added to c->all first */
+    const tt_termtable *tables[64];
     size_t n = 0;
     uint64_t total = 0;
+    tt_status st = TT_OK;
     tables[n++] = c->all;
-    for (size_t i = 0; i < c->parts.n && n < 65; i++)
-        tables[n++] = c->parts.tables[i];
+    for (size_t i = 0; i < c->parts.n && !st; i++) {
+        if (i < 63)
+            tables[n++] = c->parts.tables[i];
+        else
+            st = tt_termtable_merge(c->all, c->parts.tables[i]);
+    }
     for (size_t i = 0; i < n; i++)
         total += tt_termtable_total(tables[i]);
     int threads = c->pipe.batch.threads;
     tt_term_entry *e = NULL;
     size_t rows = 0;
     tt_table_writer w;
-    tt_status st = n > 64 ? TT_EINVAL : begin(c, &w, &c->buf, 0);
+    if (!st)
+        st = begin(c, &w, &c->buf, 0);
     if (!st)
         st = tt_termtable_sorted_union(tables, n, threads, &e, &rows);
     if (!st)
@@ -391,6 +399,8 @@ int tt_cmd_count(int argc, char **argv)
                 break;
             }
         }
+        if (st && !c.err.status)
+            tt_error_set(&c.err, st, NULL, -1, "%s while writing the total", tt_status_name(st));
     }
     if (!st)
         st = flush(&c, 1);
