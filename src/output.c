@@ -55,6 +55,10 @@ static size_t put_u64(uint64_t v, char *out)
     return n;
 }
 
+/* Powers of ten, each exact as a double (up to 10^12, the most decimals). */
+static const double pow10_d[13] = { 1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6,
+                                    1e7, 1e8, 1e9, 1e10, 1e11, 1e12 };
+
 size_t tt_format_fixed(double x, int decimals, char *out)
 {
     if (isnan(x)) {
@@ -75,11 +79,11 @@ size_t tt_format_fixed(double x, int decimals, char *out)
         decimals = 12;
     size_t n = 0;
     int neg = x < 0;
-    double a = fabs(x);
-    double scale = 1;
-    for (int i = 0; i < decimals; i++)
-        scale *= 10;
-    double scaled = floor(a * scale + 0.5);
+    /* rounded half away from zero: the integer part of |x| * 10^decimals
+     * + 0.5 (a conversion truncates, which is floor for what is not
+     * negative) */
+    double scale = pow10_d[decimals];
+    double scaled = fabs(x) * scale + 0.5;
     if (scaled >= 1.8e19) { /* too large for the integer path: plain %e-free fallback */
         int k = snprintf(out, 40, "%.0f", x);
         return k < 0 ? 0 : (size_t)k;
@@ -95,13 +99,19 @@ size_t tt_format_fixed(double x, int decimals, char *out)
         out[n++] = '-';
     n += put_u64(ip, out + n);
     if (decimals) {
+        /* exactly `decimals` digits, leading zeros included */
         out[n++] = '.';
-        char digits[24];
-        size_t dl = put_u64(fp, digits);
-        for (size_t i = dl; i < (size_t)decimals; i++)
-            out[n++] = '0';
-        memcpy(out + n, digits, dl);
-        n += dl;
+        char *p = out + n + decimals;
+        int k = decimals;
+        for (; k >= 2; k -= 2) {
+            unsigned d = (unsigned)(fp % 100) * 2;
+            fp /= 100;
+            *--p = digit_pairs[d + 1];
+            *--p = digit_pairs[d];
+        }
+        if (k)
+            *--p = (char)('0' + fp % 10);
+        n += (size_t)decimals;
     }
     out[n] = '\0';
     return n;
@@ -291,10 +301,21 @@ static tt_status put_plain_cell(tt_table_writer *w, char *num, size_t n)
         tt_status st = cell_start(w);
         return st ? st : tt_buf_append(w->out, num + 1, n);
     }
-    if (!w->col++)
-        return tt_buf_append(w->out, num + 1, n);
-    num[0] = w->format == TT_FORMAT_CSV ? ',' : '\t';
-    return tt_buf_append(w->out, num, n + 1);
+    const char *from = num + 1;
+    if (w->col++) {
+        num[0] = w->format == TT_FORMAT_CSV ? ',' : '\t';
+        from = num;
+        n++;
+    }
+    tt_status st = tt_buf_grow(w->out, n);
+    if (st)
+        return st;
+    char *to = w->out->data + w->out->len;
+    for (size_t i = 0; i < n; i++) /* a few bytes: no call */
+        to[i] = from[i];
+    to[n] = '\0';
+    w->out->len += n;
+    return TT_OK;
 }
 
 tt_status tt_table_u64(tt_table_writer *w, uint64_t v)
