@@ -275,8 +275,51 @@ static tt_status put_tsv_string(tt_buf *b, const char *s, size_t len)
     return st;
 }
 
+tt_status tt_table_escape(tt_format f, const char *s, size_t len, tt_buf *out)
+{
+    switch (f) {
+    case TT_FORMAT_JSONL: return put_json_string(out, s, len);
+    case TT_FORMAT_CSV: return put_csv_string(out, s, len);
+    case TT_FORMAT_TSV: return put_tsv_string(out, s, len);
+    }
+    return TT_EINVAL;
+}
+
+/* Bytes of the next cell as they are (escaped already): with TSV and CSV
+ * the separator and the bytes in one step. */
+static tt_status put_raw_cell(tt_table_writer *w, const char *s, size_t len)
+{
+    if (w->format == TT_FORMAT_JSONL) {
+        tt_status st = cell_start(w);
+        return st ? st : tt_buf_append(w->out, s, len);
+    }
+    tt_status st = tt_buf_grow(w->out, len + 1);
+    if (st)
+        return st;
+    char *p = w->out->data + w->out->len;
+    if (w->col++)
+        *p++ = w->format == TT_FORMAT_CSV ? ',' : '\t';
+    memcpy(p, s, len);
+    p[len] = '\0';
+    w->out->len = (size_t)(p + len - w->out->data);
+    return TT_OK;
+}
+
+tt_status tt_table_escaped(tt_table_writer *w, const char *s, size_t len)
+{
+    return put_raw_cell(w, s, len);
+}
+
 tt_status tt_table_str(tt_table_writer *w, const char *s, size_t len)
 {
+    if (w->format == TT_FORMAT_TSV) {
+        /* nothing to escape (the usual term): as it is */
+        size_t i = 0;
+        while (i < len && s[i] != '\t' && s[i] != '\n' && s[i] != '\r' && s[i] != '\\')
+            i++;
+        if (i == len)
+            return put_raw_cell(w, s, len);
+    }
     tt_status st = cell_start(w);
     if (st)
         return st;

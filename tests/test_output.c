@@ -121,6 +121,49 @@ static void test_fixed_against_printf(void **state)
     assert_true(checked > 15000);
 }
 
+/* A string escaped once (tt_table_escape) and written as a cell
+ * (tt_table_escaped) gives the same row as tt_table_str, in every format,
+ * first cell or not: strings with tabs, newlines, CR, backslashes, quotes,
+ * commas, formula starts, control bytes and non-ASCII. */
+static void test_escaped_cells_same_as_str(void **state)
+{
+    (void)state;
+    static const char *const strings[] = {
+        "plain", "", "tab\there", "line\nbreak", "cr\rx", "back\\slash", "quo\"te",
+        "com,ma", "=SUM(A1)", "+1", "-2", "@x", "\x01ctl", "caf\xc3\xa9 \xe2\x82\xac",
+        "/corpus/doc 1.txt#2:10-Q",
+    };
+    static const tt_format formats[] = { TT_FORMAT_TSV, TT_FORMAT_CSV, TT_FORMAT_JSONL };
+    static const char *const cols[] = { "a", "b", "c" };
+    for (size_t f = 0; f < 3; f++) {
+        for (size_t i = 0; i < sizeof strings / sizeof *strings; i++) {
+            const char *str = strings[i];
+            tt_buf one, two, esc;
+            tt_buf_init(&one, 0);
+            tt_buf_init(&two, 0);
+            tt_buf_init(&esc, 0);
+            tt_table_writer w1, w2;
+            assert_int_equal(tt_table_begin(&w1, formats[f], &one, cols, 3, 0), TT_OK);
+            assert_int_equal(tt_table_begin(&w2, formats[f], &two, cols, 3, 0), TT_OK);
+            assert_int_equal(tt_table_escape(formats[f], str, strlen(str), &esc), TT_OK);
+            /* as the first cell and as a later one */
+            assert_int_equal(tt_table_str(&w1, str, strlen(str)), TT_OK);
+            assert_int_equal(tt_table_escaped(&w2, esc.data, esc.len), TT_OK);
+            assert_int_equal(tt_table_u64(&w1, 7), TT_OK);
+            assert_int_equal(tt_table_u64(&w2, 7), TT_OK);
+            assert_int_equal(tt_table_str(&w1, str, strlen(str)), TT_OK);
+            assert_int_equal(tt_table_escaped(&w2, esc.data, esc.len), TT_OK);
+            assert_int_equal(tt_table_end_row(&w1), TT_OK);
+            assert_int_equal(tt_table_end_row(&w2), TT_OK);
+            assert_int_equal(one.len, two.len);
+            assert_memory_equal(one.data, two.data, one.len);
+            tt_buf_release(&one);
+            tt_buf_release(&two);
+            tt_buf_release(&esc);
+        }
+    }
+}
+
 static void test_sci(void **state)
 {
     (void)state;
@@ -260,6 +303,7 @@ int main(void)
         cmocka_unit_test(test_fixed),
         cmocka_unit_test(test_numbers_against_printf),
         cmocka_unit_test(test_fixed_against_printf),
+        cmocka_unit_test(test_escaped_cells_same_as_str),
         cmocka_unit_test(test_sci),
         cmocka_unit_test(test_csv_roundtrip),
         cmocka_unit_test(test_jsonl_roundtrip),

@@ -48,6 +48,11 @@ tt_status tt_table_begin(tt_table_writer *w, tt_format format, tt_buf *out,
  * never runs it as a formula; JSON escapes per RFC 8259. */
 tt_status tt_table_str(tt_table_writer *w, const char *s, size_t len);
 tt_status tt_table_cstr(tt_table_writer *w, const char *s);
+/* The same string cell in two steps, for a value repeated on many rows (a
+ * document's name): tt_table_escape appends s to out as format f writes
+ * it in a cell, and tt_table_escaped writes such bytes as the next cell. */
+tt_status tt_table_escape(tt_format f, const char *s, size_t len, tt_buf *out);
+tt_status tt_table_escaped(tt_table_writer *w, const char *s, size_t len);
 tt_status tt_table_u64(tt_table_writer *w, uint64_t v);
 /* NaN (an undefined statistic) is written "n/a" in TSV and CSV, null in
  * JSON Lines. */

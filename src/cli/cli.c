@@ -406,13 +406,16 @@ static tt_status format_rows(tt_table_writer *w, const char *doc, const tt_term_
                              size_t from, size_t to, uint64_t cum, uint64_t total, uint64_t per,
                              tt_outfile *flush_to, tt_error *err)
 {
-    tt_status st = TT_OK;
+    /* the document's cell, the same on every row, escaped once */
+    tt_buf doc_cell;
+    tt_buf_init(&doc_cell, 0);
+    tt_status st = tt_table_escape(w->format, doc, strlen(doc), &doc_cell);
     for (size_t i = from; i < to && !st; i++) {
         cum += e[i].count;
         double share = (double)e[i].count / (double)total;
         /* the last cumulative share is exactly 1: cum == total there */
         double cum_share = (double)cum / (double)total;
-        st = tt_table_cstr(w, doc);
+        st = tt_table_escaped(w, doc_cell.data, doc_cell.len);
         if (!st) st = tt_table_u64(w, i + 1);
         if (!st) st = tt_table_str(w, e[i].term, e[i].len);
         if (!st) st = tt_table_u64(w, e[i].count);
@@ -424,6 +427,7 @@ static tt_status format_rows(tt_table_writer *w, const char *doc, const tt_term_
         if (!st && flush_to)
             st = cli_flush(flush_to, w->out, err, 0);
     }
+    tt_buf_release(&doc_cell);
     return st;
 }
 
