@@ -311,28 +311,42 @@ static inline int item_before(const sort_item *a, const sort_item *b)
     return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
 }
 
-/* Sorts a[0, n) using tmp (room for n / 2 + 1 items). */
-static void sort_items(sort_item *a, sort_item *tmp, size_t n)
+/* Whether a's term sorts before b's, bytewise. */
+static inline int term_before(const sort_item *a, const sort_item *b)
+{
+    return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
+}
+
+/* The order of a merge sort: the table's (item_before) or the terms'
+ * alone (term_before). */
+static inline int before(const sort_item *a, const sort_item *b, int by_term)
+{
+    return by_term ? term_before(a, b) : item_before(a, b);
+}
+
+/* Sorts a[0, n) using tmp (room for n / 2 + 1 items), in the table's order
+ * or (by_term) by term alone. */
+static void sort_items(sort_item *a, sort_item *tmp, size_t n, int by_term)
 {
     if (n <= 16) {
         for (size_t i = 1; i < n; i++) {
             sort_item x = a[i];
             size_t j = i;
-            for (; j > 0 && item_before(&x, &a[j - 1]); j--)
+            for (; j > 0 && before(&x, &a[j - 1], by_term); j--)
                 a[j] = a[j - 1];
             a[j] = x;
         }
         return;
     }
     size_t h = n / 2;
-    sort_items(a, tmp, h);
-    sort_items(a + h, tmp, n - h);
-    if (!item_before(&a[h], &a[h - 1]))
+    sort_items(a, tmp, h, by_term);
+    sort_items(a + h, tmp, n - h, by_term);
+    if (!before(&a[h], &a[h - 1], by_term))
         return; /* already in order */
     memcpy(tmp, a, h * sizeof *a);
     size_t i = 0, j = h, k = 0;
     while (i < h && j < n)
-        a[k++] = item_before(&a[j], &tmp[i]) ? a[j++] : tmp[i++];
+        a[k++] = before(&a[j], &tmp[i], by_term) ? a[j++] : tmp[i++];
     while (i < h)
         a[k++] = tmp[i++];
 }
@@ -383,36 +397,6 @@ static sort_item *radix_items(sort_item *a, sort_item *tmp, size_t n, int by_cou
     return a;
 }
 
-static inline int term_before(const sort_item *a, const sort_item *b)
-{
-    return bytes_cmp(a->term, a->len, b->term, b->len) < 0;
-}
-
-/* Sorts a[0, n) bytewise by term using tmp (room for n / 2 + 1). */
-static void sort_by_term(sort_item *a, sort_item *tmp, size_t n)
-{
-    if (n <= 16) {
-        for (size_t i = 1; i < n; i++) {
-            sort_item x = a[i];
-            size_t j = i;
-            for (; j > 0 && term_before(&x, &a[j - 1]); j--)
-                a[j] = a[j - 1];
-            a[j] = x;
-        }
-        return;
-    }
-    size_t h = n / 2;
-    sort_by_term(a, tmp, h);
-    sort_by_term(a + h, tmp, n - h);
-    if (!term_before(&a[h], &a[h - 1]))
-        return;
-    memcpy(tmp, a, h * sizeof *a);
-    size_t i = 0, j = h, k = 0;
-    while (i < h && j < n)
-        a[k++] = term_before(&a[j], &tmp[i]) ? a[j++] : tmp[i++];
-    while (i < h)
-        a[k++] = tmp[i++];
-}
 
 /* Sorts a[0, n) bytewise by term (terms distinct); tmp has room for n.
  * Returns whichever of a and tmp holds the result. */
@@ -425,7 +409,7 @@ static sort_item *sort_terms(sort_item *a, sort_item *tmp, size_t n, size_t *his
         while (j < n && r[j].prefix == r[i].prefix)
             j++;
         if (j - i > 1)
-            sort_by_term(r + i, spare, j - i);
+            sort_items(r + i, spare, j - i, 1);
         i = j;
     }
     return r;
@@ -471,7 +455,7 @@ tt_status tt_termtable_sorted(const tt_termtable *t, tt_term_entry **out, size_t
         return TT_ENOMEM;
     }
     size_t k = gather(t, items);
-    sort_items(items, items + total, k);
+    sort_items(items, items + total, k, 0);
     items_to_entries(items, k, e);
     tt_free(items);
     *out = e;
