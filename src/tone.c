@@ -40,6 +40,7 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
 #define F_EMPTY 1u
 #define F_NEGATOR 2u
 #define F_PHRASE_END 4u
+#define F_PHRASE_START 8u
 
 typedef struct cache_entry {
     uint64_t raw[CACHE_RAW / 8];
@@ -67,7 +68,9 @@ struct tt_tone {
     size_t ring_len, ring_head;
     cache_entry *cache; /* tti_alloc_large: 4 MB read at random, on huge pages */
     int cache_mapped;
-    tt_termtable *phrase_ends; /* last words of the lexicon's phrases */
+    tt_termtable *phrase_ends;   /* last words of the lexicon's phrases */
+    tt_termtable *phrase_starts; /* and their first words */
+    uint8_t ring_flags[TT_LIMIT_LEXICON_PHRASE_WORDS]; /* each ring word's F_* flags */
     size_t slow_hits[MAX_HITS];
     tt_tone_scores sentence;   /* tt_tone_score_sentences' scratch */
 };
@@ -285,7 +288,8 @@ tt_tone *tt_tone_new(const tt_tone_options *opt)
     }
     t->cache = tti_alloc_large((size_t)1 << CACHE_BITS, sizeof *t->cache, &t->cache_mapped);
     t->phrase_ends = tt_termtable_new();
-    if (!t->cache || !t->phrase_ends) {
+    t->phrase_starts = tt_termtable_new();
+    if (!t->cache || !t->phrase_ends || !t->phrase_starts) {
         tt_tone_free(t);
         return NULL;
     }
@@ -295,7 +299,10 @@ tt_tone *tt_tone_new(const tt_tone_options *opt)
             continue;
         const char *last = strrchr(e->term, ' ');
         last = last ? last + 1 : e->term;
-        if (tt_termtable_add(t->phrase_ends, last, strlen(last), 1)) {
+        const char *gap = strchr(e->term, ' ');
+        size_t first = gap ? (size_t)(gap - e->term) : strlen(e->term);
+        if (tt_termtable_add(t->phrase_ends, last, strlen(last), 1) ||
+            tt_termtable_add(t->phrase_starts, e->term, first, 1)) {
             tt_tone_free(t);
             return NULL;
         }
@@ -313,6 +320,7 @@ void tt_tone_free(tt_tone *t)
     tt_buf_release(&t->stem);
     tti_free_large(t->cache, (size_t)1 << CACHE_BITS, sizeof *t->cache, t->cache_mapped);
     tt_termtable_free(t->phrase_ends);
+    tt_termtable_free(t->phrase_starts);
     tt_tone_scores_release(&t->sentence);
     tt_free(t);
 }
@@ -391,6 +399,8 @@ static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **w
             f |= F_NEGATOR;
         if (tt_termtable_get(t->phrase_ends, t->word.data, t->word.len))
             f |= F_PHRASE_END;
+        if (tt_termtable_get(t->phrase_starts, t->word.data, t->word.len))
+            f |= F_PHRASE_START;
     }
     if (e && t->word.len <= CACHE_RAW && n <= CACHE_HITS) {
         memcpy(e->raw, key, sizeof key);
@@ -460,12 +470,16 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
             } else {
                 t->ring_wlen[slot] = RING_TOO_LONG;
             }
+            t->ring_flags[slot] = (uint8_t)flags;
             /* ring now ends with the current word; when some phrase ends
              * with it, try every length >= 2 */
             for (size_t words = 2; (flags & F_PHRASE_END) && words <= max_phrase &&
                                    words <= t->ring_len;
                  words++) {
                 size_t first = (t->ring_head + t->ring_len - words) % TT_LIMIT_LEXICON_PHRASE_WORDS;
+                /* no phrase starts with that word: no lookup */
+                if (!(t->ring_flags[first] & F_PHRASE_START))
+                    continue;
                 size_t plen = 0;
                 int fits = 1;
                 for (size_t w = 0; w < words && fits; w++) {
