@@ -64,6 +64,7 @@ typedef struct runner {
     pthread_mutex_t lock;
     pthread_cond_t cond_done, cond_space;
     size_t next, delivered;
+    size_t waiting_for; /* the input the calling thread waits for, or SIZE_MAX */
     int stop;
     tt_termtable **partials; /* one per worker thread, handed over at exit */
     size_t n_partials;
@@ -369,6 +370,30 @@ static void process_input(runner *r, worker_state *ws, size_t i, slot *s)
     }
 }
 
+/* Under the lock, after an input is done: whether the calling thread,
+ * waiting for an input, should wake now. Not after every input: only once
+ * the input it waits for is done and the window is half full (or every
+ * input is taken, or the batch stops), so that it delivers several inputs
+ * a wake-up. Each wake-up takes a CPU from a worker for a moment, and the
+ * switches cost microseconds each on a virtual machine; a worker that
+ * finds the window full is woken by the deliveries as before. */
+static int wake_deliverer(const runner *r)
+{
+    if (r->waiting_for == SIZE_MAX || !r->slots[r->waiting_for % r->window].done)
+        return 0;
+    return r->stop || r->next >= r->inputs->n || r->next - r->delivered >= r->window / 2;
+}
+
+/* In the calling thread, with the lock held: waits until s (input i) is
+ * done. */
+static void wait_done(runner *r, const slot *s, size_t i)
+{
+    r->waiting_for = i;
+    while (!s->done)
+        pthread_cond_wait(&r->cond_done, &r->lock);
+    r->waiting_for = SIZE_MAX;
+}
+
 static void *worker_main(void *arg)
 {
     runner *r = arg;
@@ -387,7 +412,8 @@ static void *worker_main(void *arg)
         process_input(r, &ws, i, s);
         pthread_mutex_lock(&r->lock);
         s->done = 1;
-        pthread_cond_broadcast(&r->cond_done);
+        if (wake_deliverer(r))
+            pthread_cond_signal(&r->cond_done);
     }
     pthread_mutex_unlock(&r->lock);
     worker_state_finish(&ws);
@@ -470,6 +496,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     memset(&r, 0, sizeof r);
     r.inputs = inputs;
     r.opt = opt;
+    r.waiting_for = SIZE_MAX;
     r.window = opt->window ? opt->window : (size_t)threads * 4;
     r.slots = tt_calloc(r.window, sizeof *r.slots);
     if (!r.slots)
@@ -519,8 +546,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
         for (size_t i = 0; i < inputs->n; i++) {
             slot *s = &r.slots[i % r.window];
             pthread_mutex_lock(&r.lock);
-            while (!s->done)
-                pthread_cond_wait(&r.cond_done, &r.lock);
+            wait_done(&r, s, i);
             pthread_mutex_unlock(&r.lock);
             if (!st)
                 st = deliver(&r, s, i, sum, err);
@@ -536,8 +562,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
                 for (size_t j = i + 1; j < taken; j++) {
                     slot *t = &r.slots[j % r.window];
                     pthread_mutex_lock(&r.lock);
-                    while (!t->done)
-                        pthread_cond_wait(&r.cond_done, &r.lock);
+                    wait_done(&r, t, j);
                     pthread_mutex_unlock(&r.lock);
                     slot_reset(t);
                 }
