@@ -531,6 +531,45 @@ static void test_not_an_index(void **state)
     assert_int_equal(tt(args, "missing"), 2);
 }
 
+/* The dictionary holds each term once: the writer keeps it so (terms.term
+ * has no SQL index to do it); a database holding a term twice, as a foreign
+ * writer could leave it, is refused as damaged by name, for reading and for
+ * writing, and left as it was. The duplicate goes in with Python's sqlite3
+ * module. */
+static void test_duplicate_term(void **state)
+{
+    (void)state;
+    char db[512], args[1024], cmd[2048], p[512];
+    size_t n0, n1, n;
+    snprintf(db, sizeof db, "%s/dup.db", tmpdir);
+    snprintf(args, sizeof args, "index -q %s demo-corpus/hollowmere", db);
+    assert_int_equal(tt(args, "dup"), 0);
+    snprintf(cmd, sizeof cmd,
+             "%s -c 'import sqlite3, sys; c = sqlite3.connect(sys.argv[1]); "
+             "t = c.execute(\"SELECT term FROM terms WHERE id = 7\").fetchone()[0]; "
+             "c.execute(\"INSERT INTO terms(id, term) VALUES((SELECT max(id) + 1 FROM terms), ?)\", "
+             "(t,)); c.commit(); c.execute(\"PRAGMA wal_checkpoint(TRUNCATE)\")' %s",
+             tt_test_python(), db);
+    assert_int_equal(system(cmd), 0);
+    char *before = tt_test_slurp(db, &n0);
+    for (int reader = 0; reader < 2; reader++) {
+        if (reader)
+            snprintf(args, sizeof args, "count --total-only --db %s", db);
+        else
+            snprintf(args, sizeof args, "index %s demo-corpus/ambleworth", db);
+        assert_int_equal(tt(args, "dupbad"), 2);
+        snprintf(p, sizeof p, "%s/dupbad.err", tmpdir);
+        char *err = tt_test_slurp(p, &n);
+        if (!strstr(err, db) || !strstr(err, "damaged index: term ids 7 and"))
+            fail_msg("%s", err);
+        free(err);
+    }
+    char *after = tt_test_slurp(db, &n1);
+    assert_true(n0 == n1 && !memcmp(before, after, n0));
+    free(before);
+    free(after);
+}
+
 /* A second writer is refused while the first holds the index; readers go on. */
 static void test_locked(void **state)
 {
@@ -764,6 +803,7 @@ int main(void)
         cmocka_unit_test_setup_teardown(test_schema, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readers_while_writing, setup, teardown),
         cmocka_unit_test_setup_teardown(test_not_an_index, setup, teardown),
+        cmocka_unit_test_setup_teardown(test_duplicate_term, setup, teardown),
         cmocka_unit_test_setup_teardown(test_locked, setup, teardown),
         cmocka_unit_test_setup_teardown(test_readonly_dir, setup, teardown),
         cmocka_unit_test_setup_teardown(test_merge, setup, teardown),
