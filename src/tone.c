@@ -22,7 +22,6 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
 
 #define MAX_HITS 16
 #define RING_WORD TT_LIMIT_LEXICON_WORD_BYTES
-#define RING_TOO_LONG 0xFF
 
 /* The token cache: raw token bytes (up to CACHE_RAW) to what the slow path
  * makes of them: the normalized word, its word and stem hits, and whether it
@@ -62,11 +61,14 @@ struct tt_tone {
     tt_normalizer norm;
     tt_stemmer *stemmer;
     tt_buf word, stem;
-    /* the last words of the sentence, for phrases; a word longer than
-     * RING_WORD bytes is kept as "too long" (the lexicon refuses words that
-     * long, so no phrase through it can match) */
-    char ring[TT_LIMIT_LEXICON_PHRASE_WORDS][RING_WORD];
-    uint8_t ring_wlen[TT_LIMIT_LEXICON_PHRASE_WORDS]; /* RING_TOO_LONG: too long */
+    /* The last words of the sentence, for phrases: where each one's token
+     * lies in the block's text. A phrase is put together, its words
+     * normalized again (into pword), only when its first word starts some
+     * phrase and its last ends one: copying every word into the ring cost
+     * a library call a word. A word longer than RING_WORD bytes fails any
+     * phrase through it (the lexicon refuses words that long). */
+    size_t ring_off[TT_LIMIT_LEXICON_PHRASE_WORDS], ring_raw[TT_LIMIT_LEXICON_PHRASE_WORDS];
+    tt_buf pword;
     char phrase[TT_LIMIT_LEXICON_PHRASE_WORDS * (RING_WORD + 1)];
     size_t ring_len, ring_head;
     cache_entry *cache; /* tti_alloc_large: 8 MB read at random, on huge pages */
@@ -284,6 +286,7 @@ tt_tone *tt_tone_new(const tt_tone_options *opt)
     }
     tt_normalizer_init(&t->norm);
     tt_buf_init(&t->word, TT_LIMIT_TOKEN_BYTES * 8);
+    tt_buf_init(&t->pword, TT_LIMIT_TOKEN_BYTES * 8);
     tt_buf_init(&t->stem, TT_LIMIT_TOKEN_BYTES * 8);
     if (tt_lexicon_has_stems(opt->lexicon) && !(t->stemmer = tt_stemmer_new())) {
         tt_tone_free(t);
@@ -320,6 +323,7 @@ void tt_tone_free(tt_tone *t)
     tt_normalizer_release(&t->norm);
     tt_stemmer_free(t->stemmer);
     tt_buf_release(&t->word);
+    tt_buf_release(&t->pword);
     tt_buf_release(&t->stem);
     tti_free_large(t->cache, (size_t)1 << CACHE_BITS, sizeof *t->cache, t->cache_mapped);
     tt_termtable_free(t->phrase_ends);
@@ -467,12 +471,8 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
                 t->ring_len++;
             else
                 t->ring_head = (t->ring_head + 1) % TT_LIMIT_LEXICON_PHRASE_WORDS;
-            if (wlen <= RING_WORD) {
-                memcpy(t->ring[slot], word, wlen);
-                t->ring_wlen[slot] = (uint8_t)wlen;
-            } else {
-                t->ring_wlen[slot] = RING_TOO_LONG;
-            }
+            t->ring_off[slot] = tok.off;
+            t->ring_raw[slot] = tok.len;
             t->ring_flags[slot] = (uint8_t)flags;
             /* ring now ends with the current word; when some phrase ends
              * with it, try every length >= 2 */
@@ -487,14 +487,18 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
                 int fits = 1;
                 for (size_t w = 0; w < words && fits; w++) {
                     size_t r = (first + w) % TT_LIMIT_LEXICON_PHRASE_WORDS;
-                    if (t->ring_wlen[r] == RING_TOO_LONG) {
+                    /* the word as resolve made it (it did once already) */
+                    st = tt_normalize(&t->norm, text + t->ring_off[r], t->ring_raw[r], &t->pword);
+                    if (st)
+                        return st;
+                    if (t->pword.len > RING_WORD) {
                         fits = 0;
                         break;
                     }
                     if (w)
                         t->phrase[plen++] = ' ';
-                    memcpy(t->phrase + plen, t->ring[r], t->ring_wlen[r]);
-                    plen += t->ring_wlen[r];
+                    memcpy(t->phrase + plen, t->pword.data, t->pword.len);
+                    plen += t->pword.len;
                 }
                 if (!fits)
                     continue;

@@ -21,6 +21,7 @@ static const char lexicon_text[] = "# name: test\n"
                                    "decline\tnegative\n"
                                    "going concern\tnegative\n"
                                    "substantial doubt\tnegative\n"
+                                   "ahead of plan\tpositive\n"
                                    "litigation*\tlegal\n"
                                    "may\thedging\n";
 
@@ -105,6 +106,13 @@ static void test_phrases_and_stems(void **state)
     score(&f, "Litigations and litigated claims; litigation costs.");
     assert_int_equal(f.s.matches[f.legal], 3);
     assert_int_equal(f.s.words, 6);
+    /* a phrase of three words, after other words of the sentence */
+    score(&f, "Shipments ran well ahead of plan.");
+    assert_int_equal(f.s.matches[f.pos], 1);
+    /* its words are normalized again from the text: in upper case they
+     * still make the phrase */
+    score(&f, "AHEAD OF PLAN, and ahead of plan.");
+    assert_int_equal(f.s.matches[f.pos], 2);
     teardown_fixture(&f);
 }
 
