@@ -461,14 +461,16 @@ static tt_status load_dictionary(tt_index *ix, tt_error *err)
             break;
         }
         ix->n_terms++;
-        uint64_t seen = tt_termtable_get(ix->id_of, term, len);
-        if (seen) {
+        /* one hash for the check and the entry */
+        uint64_t h = tti_termtable_hash(term, len);
+        tti_slot *seen = tti_termtable_find(ix->id_of, term, len, h);
+        if (seen->term) {
             st = tt_error_set(err, TT_EPARSE, ix->path, -1,
                               "damaged index: term ids %llu and %lld hold the same term",
-                              (unsigned long long)seen, id);
+                              (unsigned long long)seen->count, id);
             break;
         }
-        if ((st = tt_termtable_add(ix->id_of, term, len, (uint64_t)id)) != TT_OK)
+        if ((st = tti_termtable_insert(ix->id_of, seen, term, len, h, (uint64_t)id)) != TT_OK)
             break;
     }
     if (!st && rc != SQLITE_DONE)
