@@ -24,13 +24,15 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
 #define RING_WORD TT_LIMIT_LEXICON_WORD_BYTES
 
 /* The token cache: raw token bytes (up to CACHE_RAW) to what the slow path
- * makes of them: the normalized word, its word and stem hits, and whether it
- * is a negator or the last word of some phrase. Normalization, stemming and
+ * makes of them: its word and stem hits, and whether it is empty, a
+ * negator, or the first or last word of some phrase (a phrase's words are
+ * normalized again when one is put together, so the word itself is not
+ * kept). Normalization, stemming and
  * the lookups are pure functions of the raw bytes, so entries never go
  * stale; word frequencies are Zipf-like, so most tokens hit. An unkeyed
  * index only risks misses, never wrong results: the whole key is compared.
  * An entry is one 64-byte line (a word with more than CACHE_HITS hits is
- * never entered), and the 8 MB of entries sit on huge pages
+ * never entered: nine fill the line), and the 8 MB of entries sit on huge pages
  * (tti_alloc_large): a lookup is one cache line and no TLB miss; tone ran
  * 4% faster than with 72-byte entries straddling lines on 4 KiB pages. A
  * miss costs some 4,000 instructions (the stemmer most of them), and
@@ -38,7 +40,7 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
  * 131,072 ran 7% faster. */
 #define CACHE_BITS 17
 #define CACHE_RAW 24
-#define CACHE_HITS 3
+#define CACHE_HITS 9
 #define F_EMPTY 1u
 #define F_NEGATOR 2u
 #define F_PHRASE_END 4u
@@ -47,11 +49,9 @@ static const char *const default_negators[] = { "no", "not", "none", "neither", 
 typedef struct cache_entry {
     uint64_t raw[CACHE_RAW / 8];
     uint8_t raw_len; /* 0: unused */
-    uint8_t word_len;
     uint8_t n_hits;
     uint8_t flags;
     uint32_t hits[CACHE_HITS];
-    char word[CACHE_RAW];
 } cache_entry;
 
 _Static_assert(sizeof(cache_entry) == 64, "one cache entry per 64-byte line");
@@ -359,12 +359,11 @@ static void count_hits(tt_tone *t, const size_t *idx, size_t n, int negated, tt_
     }
 }
 
-/* What a token is to the scorer: its normalized word (*word, valid until
- * the next token), up to MAX_HITS word and stem hits in *hits, and F_*
- * flags; from the cache when the raw token was seen before. */
-static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **word,
-                         size_t *wlen, const size_t **hits, size_t *n_hits, unsigned *flags,
-                         size_t *scratch)
+/* What a token is to the scorer: up to MAX_HITS word and stem hits in
+ * *hits, and F_* flags; from the cache when the raw token was seen
+ * before. */
+static tt_status resolve(tt_tone *t, const char *raw, size_t len, const size_t **hits,
+                         size_t *n_hits, unsigned *flags, size_t *scratch)
 {
     const tt_lexicon *lex = t->opt.lexicon;
     cache_entry *e = NULL;
@@ -376,8 +375,6 @@ static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **w
             e->raw[2] == key[2]) {
             for (size_t i = 0; i < e->n_hits; i++)
                 scratch[i] = e->hits[i];
-            *word = e->word;
-            *wlen = e->word_len;
             *hits = scratch;
             *n_hits = e->n_hits;
             *flags = e->flags;
@@ -409,18 +406,14 @@ static tt_status resolve(tt_tone *t, const char *raw, size_t len, const char **w
         if (tt_termtable_get(t->phrase_starts, t->word.data, t->word.len))
             f |= F_PHRASE_START;
     }
-    if (e && t->word.len <= CACHE_RAW && n <= CACHE_HITS) {
+    if (e && n <= CACHE_HITS) {
         memcpy(e->raw, key, sizeof key);
         e->raw_len = (uint8_t)len;
-        e->word_len = (uint8_t)t->word.len;
         e->n_hits = (uint8_t)n;
         e->flags = (uint8_t)f;
         for (size_t i = 0; i < n; i++)
             e->hits[i] = (uint32_t)scratch[i];
-        memcpy(e->word, t->word.data, t->word.len);
     }
-    *word = t->word.data;
-    *wlen = t->word.len;
     *hits = scratch;
     *n_hits = n;
     *flags = f;
@@ -447,11 +440,10 @@ static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_s
         }
         if (tok.kind != TT_TOKEN_WORD)
             continue;
-        const char *word;
-        size_t wlen, nh;
+        size_t nh;
         const size_t *hits;
         unsigned flags;
-        tt_status st = resolve(t, text + tok.off, tok.len, &word, &wlen, &hits, &nh, &flags,
+        tt_status st = resolve(t, text + tok.off, tok.len, &hits, &nh, &flags,
                                t->slow_hits);
         if (st == TT_ELIMIT)
             continue;
