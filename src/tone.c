@@ -68,6 +68,7 @@ struct tt_tone {
      * a library call a word. A word longer than RING_WORD bytes fails any
      * phrase through it (the lexicon refuses words that long). */
     size_t ring_off[TT_LIMIT_LEXICON_PHRASE_WORDS], ring_raw[TT_LIMIT_LEXICON_PHRASE_WORDS];
+    uint8_t ring_flags[TT_LIMIT_LEXICON_PHRASE_WORDS]; /* each ring word's F_* flags */
     tt_buf pword;
     char phrase[TT_LIMIT_LEXICON_PHRASE_WORDS * (RING_WORD + 1)];
     size_t ring_len, ring_head;
@@ -75,7 +76,6 @@ struct tt_tone {
     int cache_mapped;
     tt_termtable *phrase_ends;   /* last words of the lexicon's phrases */
     tt_termtable *phrase_starts; /* and their first words */
-    uint8_t ring_flags[TT_LIMIT_LEXICON_PHRASE_WORDS]; /* each ring word's F_* flags */
     size_t slow_hits[MAX_HITS];
     tt_tone_scores sentence;   /* tt_tone_score_sentences' scratch */
 };

@@ -401,9 +401,10 @@ oom:
     return 0;
 }
 
-/* Rows [from, to) of a sorted table, cum the counts before row from. */
+/* rows ahead whose term is prefetched (format_rows) */
 #define ROW_AHEAD 16
 
+/* Rows [from, to) of a sorted table, cum the counts before row from. */
 static tt_status format_rows(tt_table_writer *w, const char *doc, const tt_term_entry *e,
                              size_t from, size_t to, uint64_t cum, uint64_t total, uint64_t per,
                              tt_outfile *flush_to, tt_error *err)
