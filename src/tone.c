@@ -420,18 +420,29 @@ static tt_status resolve(tt_tone *t, const char *raw, size_t len, const size_t *
     return TT_OK;
 }
 
+/* Tokens are taken from the tokenizer this many at a time. */
+#define TOKEN_BATCH 64
+
 static tt_status score_block(tt_tone *t, const char *text, size_t len, tt_tone_scores *s)
 {
     const tt_lexicon *lex = t->opt.lexicon;
     size_t max_phrase = tt_lexicon_max_phrase_words(lex);
     tt_tokenizer tk;
-    tt_token tok;
+    tt_token toks[TOKEN_BATCH];
     size_t idx[MAX_HITS];
     long pos = 0, last_negator = -1000000;
     tt_tokenizer_init(&tk, text, len);
     t->ring_len = 0;
     t->ring_head = 0;
-    while (tt_tokenizer_next(&tk, &tok)) {
+    for (size_t ti = 0, nt = 0;; ti++) {
+        if (ti == nt) {
+            if (nt && nt < TOKEN_BATCH)
+                break;
+            if (!(nt = tt_tokenizer_fill(&tk, toks, TOKEN_BATCH)))
+                break;
+            ti = 0;
+        }
+        const tt_token tok = toks[ti];
         if (tok.sentence_start) {
             t->ring_len = 0;
             t->ring_head = 0;

@@ -126,11 +126,15 @@ static void test_shares_against_python(void **state)
     (void)state;
     fixture f;
     setup_fixture(&f);
-    const char *text =
-        "Demand was strong and margins improved. The board may review the decline. "
-        "Results were not good in the east region and weak in the west. Strong orders may "
-        "offset the decline. Management said the outlook was good, not weak, and that the "
-        "quarter was never strong enough to lift the margin. Good cash flow helped.";
+    /* three times over: more words than the scorer takes from the
+     * tokenizer at once */
+#define SHARES_TEXT \
+        "Demand was strong and margins improved. The board may review the decline. " \
+        "Results were not good in the east region and weak in the west. Strong orders may " \
+        "offset the decline. Management said the outlook was good, not weak, and that the " \
+        "quarter was never strong enough to lift the margin. Good cash flow helped."
+    const char *text = SHARES_TEXT " " SHARES_TEXT " " SHARES_TEXT;
+#undef SHARES_TEXT
     score(&f, text);
     char path[] = TT_TEST_TMP "tt_tone_XXXXXX";
     int fd = mkstemp(path);
