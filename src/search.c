@@ -314,14 +314,14 @@ static tt_status tokenize(tt_searcher *s, const char *t, size_t len)
 {
     if (s->tokens_ready)
         return TT_OK;
+    enum { AT_ONCE = 64 }; /* tokens asked of the tokenizer at a time */
     tt_tokenizer tz;
     tt_tokenizer_init(&tz, t, len);
-    tt_token tok;
-    size_t sentence = 0;
+    size_t sentence = 0, got;
     s->n_tokens = 0;
-    while (tt_tokenizer_next(&tz, &tok)) {
-        if (s->n_tokens == s->cap_tokens) {
-            size_t c = s->cap_tokens ? s->cap_tokens * 2 : 64;
+    do {
+        if (s->cap_tokens - s->n_tokens < AT_ONCE) {
+            size_t c = s->cap_tokens ? s->cap_tokens * 2 : AT_ONCE;
             tt_token *nt = tt_reallocarray(s->tokens, c, sizeof *nt);
             if (!nt)
                 return TT_ENOMEM;
@@ -332,11 +332,14 @@ static tt_status tokenize(tt_searcher *s, const char *t, size_t len)
             s->sentence = ns;
             s->cap_tokens = c;
         }
-        if (tok.sentence_start && s->n_tokens)
-            sentence++;
-        s->sentence[s->n_tokens] = sentence;
-        s->tokens[s->n_tokens++] = tok;
-    }
+        got = tt_tokenizer_fill(&tz, s->tokens + s->n_tokens, AT_ONCE);
+        for (size_t i = s->n_tokens; i < s->n_tokens + got; i++) {
+            if (s->tokens[i].sentence_start && i)
+                sentence++;
+            s->sentence[i] = sentence;
+        }
+        s->n_tokens += got;
+    } while (got == AT_ONCE);
     s->tokens_ready = 1;
     return TT_OK;
 }

@@ -1213,6 +1213,16 @@ static void test_context(void **state)
     h = &r.hits[2]; /* last word of the document */
     assert_int_equal(h->after_len, 0);
     assert_memory_equal(t + h->text, "the end a target", h->before_len + h->match_len);
+    /* past the first 64 words (the tokenizer hands them out 64 at a time) */
+    char many[1024] = "";
+    for (int i = 0; i < 100; i++)
+        strcat(many, "word ");
+    strcat(many, "one two three target four five six seven\n");
+    search_text(wl, many, ".txt", &r);
+    assert_int_equal(r.n_hits, 1);
+    h = &r.hits[0];
+    assert_memory_equal(r.text.data + h->text, "one two three target four five six",
+                        h->before_len + h->match_len + h->after_len);
     /* context 0 */
     tt_watchlist_free(wl);
     o.context = 0;
