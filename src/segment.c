@@ -863,7 +863,7 @@ __attribute__((target("avx2"))) static inline __m256i or32(__m256i a, __m256i b)
 #define BOTH(f) ((uint64_t)(uint32_t)_mm256_movemask_epi8(f(lo)) | \
                  (uint64_t)(uint32_t)_mm256_movemask_epi8(f(hi)) << 32)
 
-__attribute__((target("avx2"))) static void window_avx2(window *w, const unsigned char *c)
+__attribute__((target("avx2"))) static inline void window_avx2(window *w, const unsigned char *c)
 {
     const __m256i lo = _mm256_loadu_si256((const __m256i *)(const void *)c);
     const __m256i hi = _mm256_loadu_si256((const __m256i *)(const void *)(c + 32));
@@ -921,25 +921,16 @@ __attribute__((target("avx2"))) static void window_avx2(window *w, const unsigne
 #undef BOTH
 #endif
 
-/* Tokens of the window at t->pos (p + 64 <= len), at most max of them,
- * into toks; t->pos goes to the end of the last one. Returns how many: 0
- * when the first token is not one the masks decide, and the walk must. */
-static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s, size_t p,
-                            tt_token *restrict toks, size_t max)
+/* Tokens of the window at t->pos (p + 64 <= len) whose masks are w, at
+ * most max of them, into toks; t->pos goes to the end of the last one.
+ * Returns how many: 0 when the first token is not one the masks decide,
+ * and the walk must. Inlined into each window_tokens*, so the masks stay
+ * in registers. */
+__attribute__((always_inline)) static inline size_t
+window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token *restrict toks,
+            size_t max, const window *wp)
 {
-    window w;
-#if TTI_SIMD_WIDE
-    if (t->wide && tti_use_simd)
-        window_avx2(&w, s + p);
-    else
-#endif
-#if defined(__SSE2__)
-    if (tti_use_simd)
-        window_sse2(&w, s + p);
-    else
-#endif
-        window_portable(&w, s + p);
-
+    const window w = *wp;
     const uint64_t word = w.alpha | w.digit | w.under;
     const uint64_t mid_letter = w.mid_letter, mid_num = w.mid_num;
     /* Three-byte characters the window knows (the first byte's bit): the
@@ -1013,6 +1004,35 @@ static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s, si
         t->pending_suffix = 0;
     }
     return n;
+}
+
+#if TTI_SIMD_WIDE
+__attribute__((target("avx2"))) static size_t window_tokens_avx2(tt_tokenizer *restrict t,
+                                                                 const unsigned char *s, size_t p,
+                                                                 tt_token *restrict toks,
+                                                                 size_t max)
+{
+    window w;
+    window_avx2(&w, s + p);
+    return window_take(t, s, p, toks, max, &w);
+}
+#endif
+
+static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s, size_t p,
+                            tt_token *restrict toks, size_t max)
+{
+    window w;
+#if TTI_SIMD_WIDE
+    if (t->wide && tti_use_simd)
+        return window_tokens_avx2(t, s, p, toks, max);
+#endif
+#if defined(__SSE2__)
+    if (tti_use_simd)
+        window_sse2(&w, s + p);
+    else
+#endif
+        window_portable(&w, s + p);
+    return window_take(t, s, p, toks, max, &w);
 }
 
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
