@@ -921,8 +921,10 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
 #undef BOTH
 #endif
 
-/* Tokens of the window at t->pos (p + 64 <= len) whose masks are w, at
- * most max of them, into toks; t->pos goes to the end of the last one.
+/* Tokens of the window at t->pos = p whose masks are w, at most max of
+ * them, into toks; t->pos goes to the end of the last one. The masks are
+ * of the 64 bytes from p, or of the text's last bytes padded with NUL (a
+ * byte that joins nothing and is no terminal, as the end of the text).
  * Returns how many: 0 when the first token is not one the masks decide,
  * and the walk must. Inlined into each window_tokens*, so the masks stay
  * in registers. */
@@ -1006,32 +1008,32 @@ window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token
     return n;
 }
 
+/* window_take on the 64 bytes c, the window at p of the text s. */
 #if TTI_SIMD_WIDE
-__attribute__((target("avx2"))) static size_t window_tokens_avx2(tt_tokenizer *restrict t,
-                                                                 const unsigned char *s, size_t p,
-                                                                 tt_token *restrict toks,
-                                                                 size_t max)
+__attribute__((target("avx2"))) static size_t
+window_tokens_avx2(tt_tokenizer *restrict t, const unsigned char *s, const unsigned char *c, size_t p,
+                   tt_token *restrict toks, size_t max)
 {
     window w;
-    window_avx2(&w, s + p);
+    window_avx2(&w, c);
     return window_take(t, s, p, toks, max, &w);
 }
 #endif
 
-static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s, size_t p,
-                            tt_token *restrict toks, size_t max)
+static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s,
+                            const unsigned char *c, size_t p, tt_token *restrict toks, size_t max)
 {
     window w;
 #if TTI_SIMD_WIDE
     if (t->wide && tti_use_simd)
-        return window_tokens_avx2(t, s, p, toks, max);
+        return window_tokens_avx2(t, s, c, p, toks, max);
 #endif
 #if defined(__SSE2__)
     if (tti_use_simd)
-        window_sse2(&w, s + p);
+        window_sse2(&w, c);
     else
 #endif
-        window_portable(&w, s + p);
+        window_portable(&w, c);
     return window_take(t, s, p, toks, max, &w);
 }
 
@@ -1162,8 +1164,17 @@ size_t tt_tokenizer_fill(tt_tokenizer *restrict t, tt_token *restrict toks, size
     size_t len = t->len, n = 0;
     while (n < max) {
         size_t p = t->pos;
-        if (len - p >= 64 && p < len) {
-            size_t k = window_tokens(t, s, p, toks + n, max - n);
+        if (p < len) {
+            size_t k;
+            if (len - p >= 64) {
+                k = window_tokens(t, s, s + p, p, toks + n, max - n);
+            } else {
+                /* the text's last bytes (a paragraph's, mostly), padded */
+                unsigned char pad[64];
+                memcpy(pad, s + p, len - p);
+                memset(pad + (len - p), 0, 64 - (len - p));
+                k = window_tokens(t, s, pad, p, toks + n, max - n);
+            }
             if (k) {
                 n += k;
                 continue;
