@@ -157,7 +157,8 @@ struct tt_counter {
     cache_entry *cache; /* 1 << CACHE_BITS entries, 64-byte aligned */
     void *cache_mem;    /* the allocation cache points into */
     ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
-    void *ascii_mem;
+    void *ascii_mem;    /* from tti_alloc_large: read at random, on a huge page */
+    int ascii_mapped;
     dirty_list dirty;   /* ASCII sets with pending hits (maybe) */
     dirty_list gdirty;  /* general cache entries with pending hits (maybe) */
     tt_status fill_status; /* a failure to add evicted hits, for count_block */
@@ -248,7 +249,8 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
     }
     c->cache = (cache_entry *)(((uintptr_t)c->cache_mem + 63) & ~(uintptr_t)63);
     if (!opt->stem) {
-        c->ascii_mem = tt_calloc(((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii);
+        c->ascii_mem = tti_alloc_large(((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii,
+                                       &c->ascii_mapped);
         if (!c->ascii_mem) {
             tt_counter_free(c);
             return NULL;
@@ -285,7 +287,7 @@ void tt_counter_free(tt_counter *c)
     for (int i = 0; i < MAX_N; i++)
         tt_buf_release(&c->win[i].term);
     tt_free(c->cache_mem);
-    tt_free(c->ascii_mem);
+    tti_free_large(c->ascii_mem, ((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii, c->ascii_mapped);
     tt_free(c->dirty.id);
     tt_free(c->dirty.on);
     tt_free(c->gdirty.id);
