@@ -960,18 +960,25 @@ window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token
                           (ends & apos3 & (high >> 3)) | (starts & w.under) |
                           ((uint64_t)1 << 63);
     ends &= ((uint64_t)1 << __builtin_ctzll(stop)) - 1;
-    const uint64_t terminals = w.term & ~in;
+    /* the terminals not yet passed (none is inside a token), and a bit at
+     * the end of each token that holds a letter: adding a token's letters
+     * to its bits carries out of its last bit onto the byte after it (a
+     * byte outside every token, so the carry stops there) */
+    uint64_t terminals = w.term & ~in;
+    const uint64_t word_ends = (in + w.alpha) & ~in;
 
     size_t n = 0;
     unsigned from = 0, a = 0, e = 0;
     int at_start = t->at_sentence_start, suffix = t->pending_suffix;
     while (ends && n < max) {
+        const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
         a = (unsigned)__builtin_ctzll(starts);
         e = (unsigned)__builtin_ctzll(ends);
-        starts &= starts - 1;
-        ends &= ends - 1;
-        uint64_t gap = terminals & (((uint64_t)1 << a) - ((uint64_t)1 << from));
+        starts ^= start_bit;
+        ends ^= end_bit;
+        uint64_t gap = terminals & (start_bit - 1);
         if (gap) { /* a sentence end (or an abbreviation's period) */
+            terminals ^= gap;
             t->at_sentence_start = at_start;
             if (n) {
                 t->prev_off = toks[n - 1].off;
@@ -988,8 +995,7 @@ window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token
         tt_token *tok = &toks[n++];
         tok->off = p + a;
         tok->len = e - a;
-        tok->kind = (w.alpha & (((uint64_t)1 << e) - ((uint64_t)1 << a))) ? TT_TOKEN_WORD
-                                                                           : TT_TOKEN_NUMBER;
+        tok->kind = (word_ends & end_bit) ? TT_TOKEN_WORD : TT_TOKEN_NUMBER;
         /* after "Inc." a lower-case word or a number goes on the sentence */
         if (at_start && suffix) {
             unsigned b = s[p + a];
