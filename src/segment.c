@@ -841,9 +841,9 @@ static void window_sse2(window *w, const unsigned char *c)
         w->e2 |= bits16(eq16(v, (char)0xE2), k);
         w->b80 |= bits16(eq16(v, (char)0x80), k);
         w->b82 |= bits16(eq16(v, (char)0x82), k);
-        w->dash_quote |= bits16(_mm_or_si128(_mm_or_si128(eq16(v, (char)0x93), eq16(v, (char)0x94)),
-                                             _mm_or_si128(eq16(v, (char)0x9C), eq16(v, (char)0x9D))),
-                                k);
+        __m128i dq = _mm_or_si128(_mm_or_si128(eq16(v, (char)0x93), eq16(v, (char)0x94)),
+                                  _mm_or_si128(eq16(v, (char)0x9C), eq16(v, (char)0x9D)));
+        w->dash_quote |= bits16(dq, k);
         w->apos |= bits16(_mm_or_si128(eq16(v, (char)0x98), eq16(v, (char)0x99)), k);
         w->euro |= bits16(eq16(v, (char)0xAC), k);
     }
@@ -1019,8 +1019,8 @@ window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token
 /* window_take on the 64 bytes c, the window at p of the text s. */
 #if TTI_SIMD_WIDE
 __attribute__((target("avx2"))) static size_t
-window_tokens_avx2(tt_tokenizer *restrict t, const unsigned char *s, const unsigned char *c, size_t p,
-                   tt_token *restrict toks, size_t max)
+window_tokens_avx2(tt_tokenizer *restrict t, const unsigned char *s, const unsigned char *c,
+                   size_t p, tt_token *restrict toks, size_t max)
 {
     window w;
     window_avx2(&w, c);
