@@ -776,8 +776,9 @@ fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t 
  * The window starts at the tokenizer's position, a boundary, so nothing
  * before it joins (the walk, too, starts fresh at a boundary). It stops at
  * the first byte the masks cannot decide, and the walk takes over from the
- * end of the last token taken: a byte >= 0x80 (a non-ASCII letter, mark,
- * quote or terminal), a '-' after a run that does not join, a Mid* or
+ * end of the last token taken: a byte >= 0x80 other than those of the
+ * filings' dashes, quotes and euro sign (see window_take: a non-ASCII
+ * letter, mark or terminal), a '-' after a run that does not join, a Mid* or
  * quote after a run followed by a byte >= 0x80, a run starting with '_'
  * (which may hold no letter or digit), and the window's last byte, whose
  * right neighbour it does not see. */
