@@ -350,10 +350,16 @@ static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 
 #if TTI_SIMD_WIDE
 /* The same masks 32 bytes at a time (AVX2, where the CPU has it). */
-__attribute__((target("avx2"))) static inline uint32_t in_range32(__m256i v, int lo, int span)
+/* Unsigned v - lo < span for each byte, as a vector of 0x00 / 0xFF. */
+__attribute__((target("avx2"))) static inline __m256i in_range_v32(__m256i v, int lo, int span)
 {
     __m256i d = _mm256_add_epi8(v, _mm256_set1_epi8((char)(0x80 - lo)));
-    return (uint32_t)_mm256_movemask_epi8(_mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + span)), d));
+    return _mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + span)), d);
+}
+
+__attribute__((target("avx2"))) static inline uint32_t in_range32(__m256i v, int lo, int span)
+{
+    return (uint32_t)_mm256_movemask_epi8(in_range_v32(v, lo, span));
 }
 
 __attribute__((target("avx2"))) static void chunk_masks_avx2(tt_tokenizer *t, const unsigned char *c)
@@ -870,11 +876,8 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
 {
     const __m256i lo = _mm256_loadu_si256((const __m256i *)(const void *)c);
     const __m256i hi = _mm256_loadu_si256((const __m256i *)(const void *)(c + 32));
-#define ALPHA(v) _mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + 26)), \
-                                   _mm256_add_epi8(or32(v, _mm256_set1_epi8(0x20)), \
-                                                   _mm256_set1_epi8((char)(0x80 - 'a'))))
-#define DIGIT(v) _mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + 10)), \
-                                   _mm256_add_epi8(v, _mm256_set1_epi8((char)(0x80 - '0'))))
+#define ALPHA(v) in_range_v32(or32(v, _mm256_set1_epi8(0x20)), 'a', 26)
+#define DIGIT(v) in_range_v32(v, '0', 10)
 #define SELF(v) (v)
 #define UNDER(v) eq32(v, '_')
 #define HYPHEN(v) eq32(v, '-')
