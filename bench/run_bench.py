@@ -116,7 +116,9 @@ class Timer:
 
     def once(self, cmd):
         full = ["/usr/bin/time", "-f", "%e %U %S %M", "-o", self.tf, "/bin/bash", "-c", cmd]
+        t0 = time.perf_counter()
         p = subprocess.run(full, stdout=subprocess.DEVNULL, stderr=subprocess.PIPE)
+        self.last_wall = time.perf_counter() - t0
         if p.returncode != 0:
             sys.stderr.write(p.stderr.decode("utf-8", "replace")[-2000:])
             raise SystemExit(f"benchmark command failed ({p.returncode}): {cmd}")
@@ -133,6 +135,32 @@ class Timer:
             rss.append(m)
         return {"wall": statistics.median(walls), "min": min(walls), "max": max(walls),
                 "cpu": statistics.median(cpus), "rss_mb": max(rss) / 1024.0, "walls": walls}
+
+    def measure_pair(self, cmd_a, cmd_b, rounds):
+        """How many times faster cmd_b runs than cmd_a, timed in alternation
+        (a b, then b a, ...) after a warm-up of each: the median of the
+        rounds' ratios. A machine whose speed drifts between the two rows
+        of the table (a neighbour's load, a slowed virtual CPU) moves both
+        runs of a round alike, so the ratio holds where two medians taken
+        minutes apart would not."""
+        def wall(cmd):
+            # GNU time's %e has 10 ms steps: the wall clock of this side
+            # instead (the shell's start included, the same for both)
+            self.once(cmd)
+            return self.last_wall
+
+        self.once(cmd_a)
+        self.once(cmd_b)
+        ratios = []
+        for i in range(rounds):
+            if i % 2 == 0:
+                wa = wall(cmd_a)
+                wb = wall(cmd_b)
+            else:
+                wb = wall(cmd_b)
+                wa = wall(cmd_a)
+            ratios.append(wa / wb if wb > 0 else float("inf"))
+        return {"ratio": statistics.median(ratios), "ratios": ratios}
 
 
 # ---------------------------------------------------------------- reading tables
@@ -507,6 +535,15 @@ def main():
         r = timer.measure(cmd)
         r.update(name=name, cmd=cmd, mb=mb, label=label)
         res[key] = r
+    # The -j 2 targets are ratios of two runs of the same program: timed
+    # again in alternation, so that a change in the machine's speed between
+    # the two rows above cannot decide them.
+    paired = {}
+    pair_rounds = max(5, 2 * a.runs)
+    for one, two in (("tt", "tt-j2"), ("tt-docs", "tt-docs-j2")):
+        log(f"timing {res[one]['name']} against {res[two]['name']} in alternation "
+            f"({pair_rounds} rounds after a warm-up)")
+        paired[two] = timer.measure_pair(res[one]["cmd"], res[two]["cmd"], pair_rounds)
 
     # -- checks (untimed): each tool's token and distinct-term totals, and
     # tables that must be identical.
@@ -721,12 +758,19 @@ def main():
            f"termtide {tmb / main_w:.0f} MB/s, wc -w {tmb / res['wc']['wall']:.0f} MB/s")
     r_html = ratio("py-html", html_w)
     target("HTML: ≥ 8× faster than Python html.parser + Counter", ratio_str(r_html), r_html >= 8)
-    r_j2 = main_w / res["tt-j2"]["wall"]
+    def pair_note(two, rows_ratio, same_out):
+        rs = ", ".join(f"{x:.2f}" for x in paired[two]["ratios"])
+        return (f"median of {len(paired[two]['ratios'])} rounds timed in alternation ({rs}); "
+                f"the table's rows: {ratio_str(rows_ratio)}; "
+                + ("output identical" if same_out else "OUTPUT DIFFERS"))
+    r_j2 = paired["tt-j2"]["ratio"]
     target("-j 2 ≥ 1.8× faster than -j 1, identical output (--total-only)", ratio_str(r_j2),
-           r_j2 >= 1.8 and j2_same, "output identical" if j2_same else "OUTPUT DIFFERS")
-    r_dj2 = res["tt-docs"]["wall"] / res["tt-docs-j2"]["wall"]
+           r_j2 >= 1.8 and j2_same, pair_note("tt-j2", main_w / res["tt-j2"]["wall"], j2_same))
+    r_dj2 = paired["tt-docs-j2"]["ratio"]
     target("-j 2 ≥ 1.8× faster than -j 1, identical output (a table per document)", ratio_str(r_dj2),
-           r_dj2 >= 1.8 and docs_j2_same, "output identical" if docs_j2_same else "OUTPUT DIFFERS")
+           r_dj2 >= 1.8 and docs_j2_same,
+           pair_note("tt-docs-j2", res["tt-docs"]["wall"] / res["tt-docs-j2"]["wall"],
+                     docs_j2_same))
     rss_main = res["tt"]["rss_mb"]
     big_s = [x for x in scaling if x[0] == max(scales)]
     rss_big = big_s[0][3]["rss_mb"] if big_s else float("nan")
