@@ -285,6 +285,15 @@ tt_status tt_table_escape(tt_format f, const char *s, size_t len, tt_buf *out)
     return TT_EINVAL;
 }
 
+/* Room for extra more bytes and the NUL in out: the common case (room
+ * already there: cap > len + extra, which also keeps len + extra within the
+ * limit, since tt_buf_grow never makes cap more than limit + 1) without
+ * the call, which a table of millions of cells makes once a cell. */
+static inline tt_status reserve(tt_buf *out, size_t extra)
+{
+    return extra < out->cap - out->len ? TT_OK : tt_buf_grow(out, extra);
+}
+
 /* Bytes of the next cell as they are (escaped already): with TSV and CSV
  * the separator and the bytes in one step. */
 static tt_status put_raw_cell(tt_table_writer *w, const char *s, size_t len)
@@ -293,7 +302,8 @@ static tt_status put_raw_cell(tt_table_writer *w, const char *s, size_t len)
         tt_status st = cell_start(w);
         return st ? st : tt_buf_append(w->out, s, len);
     }
-    tt_status st = tt_buf_grow(w->out, len + 1);
+    const size_t sep = w->col ? 1 : 0;
+    tt_status st = reserve(w->out, len + sep);
     if (st)
         return st;
     char *p = w->out->data + w->out->len;
@@ -350,7 +360,7 @@ static tt_status put_plain_cell(tt_table_writer *w, char *num, size_t n)
         from = num;
         n++;
     }
-    tt_status st = tt_buf_grow(w->out, n);
+    tt_status st = reserve(w->out, n);
     if (st)
         return st;
     char *to = w->out->data + w->out->len;

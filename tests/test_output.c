@@ -267,6 +267,59 @@ static void test_tsv_escapes(void **state)
     tt_buf_release(&out);
 }
 
+/* A buffer's limit holds for every cell kind, byte for byte: each write
+ * either fits under the limit and is appended whole, or fails with
+ * TT_ELIMIT and leaves the buffer as it was (the writer's quick room check
+ * must not let a cell past the limit). Expected bytes built by hand. */
+static void test_limit_holds(void **state)
+{
+    (void)state;
+    for (size_t limit = 1; limit <= 64; limit++) {
+        for (int kind = 0; kind < 3; kind++) {
+            tt_buf out;
+            tt_buf_init(&out, limit);
+            tt_table_writer w;
+            assert_int_equal(tt_table_begin(&w, TT_FORMAT_TSV, &out, cols, 3, 0), TT_OK);
+            char expect[256] = "";
+            size_t elen = 0;
+            for (int i = 0; i < 40; i++) {
+                char cell[32];
+                tt_status st;
+                if (i % 4 == 3) {
+                    strcpy(cell, "\n");
+                    st = tt_table_end_row(&w);
+                } else if (kind == 0) {
+                    snprintf(cell, sizeof cell, "%s%d", (i % 4) ? "\t" : "", 1000 + i);
+                    st = tt_table_u64(&w, (uint64_t)(1000 + i));
+                } else if (kind == 1) {
+                    snprintf(cell, sizeof cell, "%sterm%d", (i % 4) ? "\t" : "", i);
+                    char t[16];
+                    snprintf(t, sizeof t, "term%d", i);
+                    st = tt_table_cstr(&w, t);
+                } else {
+                    snprintf(cell, sizeof cell, "%s0.%06d", (i % 4) ? "\t" : "", i);
+                    st = tt_table_fixed(&w, i / 1e6, 6);
+                }
+                size_t n = strlen(cell);
+                if (elen + n <= limit) {
+                    assert_int_equal(st, TT_OK);
+                    memcpy(expect + elen, cell, n + 1);
+                    elen += n;
+                } else {
+                    assert_int_equal(st, TT_ELIMIT);
+                    assert_int_equal(out.len, elen);
+                    assert_memory_equal(out.data, expect, elen + 1);
+                    break;
+                }
+                assert_int_equal(out.len, elen);
+                assert_memory_equal(out.data, expect, elen + 1);
+            }
+            assert_true(out.len <= limit);
+            tt_buf_release(&out);
+        }
+    }
+}
+
 static void test_atomic_file(void **state)
 {
     (void)state;
@@ -308,6 +361,7 @@ int main(void)
         cmocka_unit_test(test_csv_roundtrip),
         cmocka_unit_test(test_jsonl_roundtrip),
         cmocka_unit_test(test_tsv_escapes),
+        cmocka_unit_test(test_limit_holds),
         cmocka_unit_test(test_atomic_file),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
