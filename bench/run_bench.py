@@ -539,7 +539,7 @@ def main():
     # again in alternation, so that a change in the machine's speed between
     # the two rows above cannot decide them.
     paired = {}
-    pair_rounds = max(5, 2 * a.runs)
+    pair_rounds = max(9, 3 * a.runs)
     for one, two in (("tt", "tt-j2"), ("tt-docs", "tt-docs-j2")):
         log(f"timing {res[one]['name']} against {res[two]['name']} in alternation "
             f"({pair_rounds} rounds after a warm-up)")
