@@ -10,6 +10,7 @@
 
 #include "tt_test.h"
 
+#include "termtide/alloc.h"
 #include "termtide/changes.h"
 
 static void add_text(tt_sentence_list *l, const char *text)
@@ -87,8 +88,8 @@ static void test_known_pairs(void **state)
     assert_int_equal(tt_sentence_words_missing(base, b1, target, t0, &removed), TT_OK);
     assert_string_equal(added, "two foundries");
     assert_string_equal(removed, "one foundry");
-    free(added);
-    free(removed);
+    tt_free(added);
+    tt_free(removed);
     /* a stricter threshold leaves t0 ~ b1 (0.56) unpaired: added and removed */
     assert_int_equal(tt_align_sentences(base, target, 0.6, &a), TT_OK);
     assert_int_equal(a.modified, 1);

@@ -124,7 +124,8 @@ void tt_sentence_lists_similarity(const tt_sentence_list *a, const tt_sentence_l
 tt_sentence_list *tt_sentence_list_new_sharing(tt_sentence_list *base);
 
 /* The words of t (ids in the shared dictionary) that s lacks, as text
- * joined by spaces, into out (reset first). TT_ENOMEM. */
+ * joined by spaces: *out is a new string the caller frees with tt_free
+ * (NULL on failure). TT_ENOMEM. */
 tt_status tt_sentence_words_missing(const tt_sentence_list *from, const tt_sentence *t,
                                     const tt_sentence_list *in, const tt_sentence *s,
                                     char **out);

@@ -254,7 +254,7 @@ static tt_status write_pair(changes_ctx *c, const char *entity, const char *base
         if (ch->kind == TT_CHANGE_MODIFIED &&
             (tt_sentence_words_missing(b, st_, a, sb, &added) ||
              tt_sentence_words_missing(a, sb, b, st_, &removed))) {
-            free(added);
+            tt_free(added);
             return TT_ENOMEM;
         }
         st = tt_table_begin(&w, c->format, &c->buf, sentence_cols, 13, 0);
@@ -275,8 +275,8 @@ static tt_status write_pair(changes_ctx *c, const char *entity, const char *base
         if (!st) st = tt_table_cstr(&w, added ? added : "");
         if (!st) st = tt_table_cstr(&w, removed ? removed : "");
         if (!st) st = tt_table_end_row(&w);
-        free(added);
-        free(removed);
+        tt_free(added);
+        tt_free(removed);
         if (!st)
             st = cli_flush(&c->out, &c->buf, &c->err, 0);
     }
