@@ -416,8 +416,10 @@ tt_status tt_table_end_row(tt_table_writer *w)
         st = tt_buf_puts(w->out, w->col ? "}\n" : "{}\n");
     else if (w->format == TT_FORMAT_CSV)
         st = tt_buf_puts(w->out, "\r\n");
-    else
-        st = tt_buf_putc(w->out, '\n');
+    else if (!(st = reserve(w->out, 1))) {
+        w->out->data[w->out->len++] = '\n';
+        w->out->data[w->out->len] = '\0';
+    }
     w->col = 0;
     return st;
 }
