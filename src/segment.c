@@ -54,12 +54,7 @@
  * never allocates or copies, and never walks back: an over-long token (a
  * 50 MB run of letters, a base64 blob) is walked once, counted, and
  * dropped. */
-#if defined(__SSE2__)
-#include <emmintrin.h>
-#endif
-#if (defined(__x86_64__) || defined(__i386__)) && defined(__SSE2__)
-#include <immintrin.h> /* the AVX2 version (TTI_SIMD_WIDE) */
-#endif
+#include "segment_internal.h" /* the windows; first, for its SIMD headers */
 
 #include <pthread.h>
 
@@ -321,13 +316,6 @@ static void chunk_masks_portable(tt_tokenizer *t, const unsigned char *c, size_t
 }
 
 #if defined(__SSE2__)
-/* Unsigned v - lo < span for each byte, as a 16-bit mask: the difference
- * moved by 0x80 into signed order (SSE2 compares signed bytes only). */
-static inline unsigned in_range(__m128i v, int lo, int span)
-{
-    __m128i d = _mm_add_epi8(v, _mm_set1_epi8((char)(0x80 - lo)));
-    return (unsigned)_mm_movemask_epi8(_mm_cmplt_epi8(d, _mm_set1_epi8((char)(0x80 + span))));
-}
 
 static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 {
@@ -350,12 +338,6 @@ static void chunk_masks_sse2(tt_tokenizer *t, const unsigned char *c)
 
 #if TTI_SIMD_WIDE
 /* The same masks 32 bytes at a time (AVX2, where the CPU has it). */
-/* Unsigned v - lo < span for each byte, as a vector of 0x00 / 0xFF. */
-__attribute__((target("avx2"))) static inline __m256i in_range_v32(__m256i v, int lo, int span)
-{
-    __m256i d = _mm256_add_epi8(v, _mm256_set1_epi8((char)(0x80 - lo)));
-    return _mm256_cmpgt_epi8(_mm256_set1_epi8((char)(0x80 + span)), d);
-}
 
 __attribute__((target("avx2"))) static inline uint32_t in_range32(__m256i v, int lo, int span)
 {
@@ -535,7 +517,7 @@ static int in_list(const unsigned char *w, size_t n, const abbrev *list, size_t 
 
 /* A segment s[from, to) holding a sentence terminal: a sentence ends
  * there, unless it is the single period of an abbreviation right after it. */
-static void terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_t to)
+void tti_terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_t to)
 {
     t->pending_suffix = 0;
     if (to == from + 1 && s[from] == '.' && t->prev_end == from) {
@@ -750,7 +732,7 @@ fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t 
     } else if ((d == ' ' || d == '\n') && c < 0x80 && c != '\r') {
         after = e + 2;
         if (tti_wb_stage2[c] & TTI_WB_TERMINAL)
-            terminal(t, s, e, e + 1);
+            tti_terminal(t, s, e, e + 1);
     } else {
         t->pos = e;
         return 1;
@@ -759,268 +741,20 @@ fast_token(tt_tokenizer *restrict t, const unsigned char *s, size_t len, size_t 
     return 1;
 }
 
-/* ---- windows -------------------------------------------------------------
- *
- * Where the text is ASCII, tt_tokenizer_fill takes tokens a 64-byte window
- * at a time, with no walk at all: the window's bytes are classified into
- * bit masks (one bit a byte), the joins of UAX #29 that ASCII can make are
- * worked out on the masks for all positions at once, and then each token is
- * two counts of trailing zeros (its start and its end). For ASCII text:
- *   - [A-Za-z0-9_] never break from each other (WB5, WB8–WB10, WB13a,
- *     WB13b);
- *   - a Mid* or quote character joins what is around it when it is
- *     letter, (':' '.' '\'') letter (WB6, WB7) or digit, (',' ';' '.' '\'')
- *     digit (WB11, WB12): ':' is MidLetter, ',' and ';' MidNum, '.'
- *     MidNumLet and '\'' Single_Quote (WordBreakProperty.txt); no other
- *     ASCII character joins anything to a word (WB3–WB4 need CR LF,
- *     spaces or non-ASCII Extend/Format/ZWJ; WB7a–WB7c need a Hebrew
- *     letter), so every other byte after a run ends it;
- *   - a '-' right after a run joins it to a following run that starts with
- *     a letter or digit (the tokens' hyphen rule, segment.h);
- *   - between tokens every character is a segment alone or a space run,
- *     and only the terminals . ! ? matter (terminal()).
- * The window starts at the tokenizer's position, a boundary, so nothing
- * before it joins (the walk, too, starts fresh at a boundary). It stops at
- * the first byte the masks cannot decide, and the walk takes over from the
- * end of the last token taken: a byte >= 0x80 other than those of the
- * filings' dashes, quotes and euro sign (see window_take: a non-ASCII
- * letter, mark or terminal), a '-' after a run that does not join, a Mid* or
- * quote after a run followed by a byte >= 0x80, a run starting with '_'
- * (which may hold no letter or digit), and the window's last byte, whose
- * right neighbour it does not see. */
-typedef struct window {
-    uint64_t alpha, digit, under, high, hyphen;
-    uint64_t mid_letter; /* : . '  (MidLetter, MidNumLetQ) */
-    uint64_t mid_num;    /* , ; . '  (MidNum, MidNumLetQ) */
-    uint64_t term;       /* . ! ? */
-    /* the bytes of the three-byte characters below (all 0 without high) */
-    uint64_t e2, b80, b82, dash_quote, apos, euro;
-} window;
-
-static void window_portable(window *w, const unsigned char *c)
+/* window_take_into's tokens into an array (ctx). */
+__attribute__((always_inline)) static inline void emit_token(void *ctx, size_t n, size_t off,
+                                                             size_t len, tt_token_kind kind,
+                                                             int sentence_start)
 {
-    memset(w, 0, sizeof *w);
-    for (unsigned i = 0; i < 64; i++) {
-        unsigned b = c[i];
-        uint64_t bit = (uint64_t)1 << i;
-        w->alpha |= tti_is_ascii_alpha((int)b) ? bit : 0;
-        w->digit |= tti_is_ascii_digit((int)b) ? bit : 0;
-        w->under |= b == '_' ? bit : 0;
-        w->high |= b >= 0x80 ? bit : 0;
-        w->hyphen |= b == '-' ? bit : 0;
-        w->mid_letter |= b == ':' || b == '.' || b == '\'' ? bit : 0;
-        w->mid_num |= b == ',' || b == ';' || b == '.' || b == '\'' ? bit : 0;
-        w->term |= b == '.' || b == '!' || b == '?' ? bit : 0;
-        w->e2 |= b == 0xE2 ? bit : 0;
-        w->b80 |= b == 0x80 ? bit : 0;
-        w->b82 |= b == 0x82 ? bit : 0;
-        w->dash_quote |= b == 0x93 || b == 0x94 || b == 0x9C || b == 0x9D ? bit : 0;
-        w->apos |= b == 0x98 || b == 0x99 ? bit : 0;
-        w->euro |= b == 0xAC ? bit : 0;
-    }
+    tt_token *tok = (tt_token *)ctx + n;
+    tok->off = off;
+    tok->len = len;
+    tok->kind = kind;
+    tok->sentence_start = sentence_start;
 }
 
-#if defined(__SSE2__)
-static inline __m128i eq16(__m128i v, char x)
-{
-    return _mm_cmpeq_epi8(v, _mm_set1_epi8(x));
-}
-
-static inline uint64_t bits16(__m128i m, unsigned k)
-{
-    return (uint64_t)(unsigned)_mm_movemask_epi8(m) << (16 * k);
-}
-
-static void window_sse2(window *w, const unsigned char *c)
-{
-    memset(w, 0, sizeof *w);
-    for (unsigned k = 0; k < 4; k++) {
-        __m128i v = _mm_loadu_si128((const __m128i *)(const void *)(c + 16 * k));
-        __m128i dot_quote = _mm_or_si128(eq16(v, '.'), eq16(v, '\''));
-        w->alpha |= (uint64_t)in_range(_mm_or_si128(v, _mm_set1_epi8(0x20)), 'a', 26) << (16 * k);
-        w->digit |= (uint64_t)in_range(v, '0', 10) << (16 * k);
-        w->under |= bits16(eq16(v, '_'), k);
-        w->high |= bits16(v, k);
-        w->hyphen |= bits16(eq16(v, '-'), k);
-        w->mid_letter |= bits16(_mm_or_si128(dot_quote, eq16(v, ':')), k);
-        w->mid_num |= bits16(_mm_or_si128(dot_quote, _mm_or_si128(eq16(v, ','), eq16(v, ';'))), k);
-        w->term |= bits16(_mm_or_si128(eq16(v, '.'), _mm_or_si128(eq16(v, '!'), eq16(v, '?'))), k);
-        w->e2 |= bits16(eq16(v, (char)0xE2), k);
-        w->b80 |= bits16(eq16(v, (char)0x80), k);
-        w->b82 |= bits16(eq16(v, (char)0x82), k);
-        __m128i dq = _mm_or_si128(_mm_or_si128(eq16(v, (char)0x93), eq16(v, (char)0x94)),
-                                  _mm_or_si128(eq16(v, (char)0x9C), eq16(v, (char)0x9D)));
-        w->dash_quote |= bits16(dq, k);
-        w->apos |= bits16(_mm_or_si128(eq16(v, (char)0x98), eq16(v, (char)0x99)), k);
-        w->euro |= bits16(eq16(v, (char)0xAC), k);
-    }
-}
-#endif
-
-#if TTI_SIMD_WIDE
-__attribute__((target("avx2"))) static inline __m256i eq32(__m256i v, char x)
-{
-    return _mm256_cmpeq_epi8(v, _mm256_set1_epi8(x));
-}
-
-__attribute__((target("avx2"))) static inline __m256i or32(__m256i a, __m256i b)
-{
-    return _mm256_or_si256(a, b);
-}
-
-/* The 64-bit mask of a byte test f on both halves. */
-#define BOTH(f) ((uint64_t)(uint32_t)_mm256_movemask_epi8(f(lo)) | \
-                 (uint64_t)(uint32_t)_mm256_movemask_epi8(f(hi)) << 32)
-
-__attribute__((target("avx2"))) static inline void window_avx2(window *w, const unsigned char *c)
-{
-    const __m256i lo = _mm256_loadu_si256((const __m256i *)(const void *)c);
-    const __m256i hi = _mm256_loadu_si256((const __m256i *)(const void *)(c + 32));
-#define ALPHA(v) in_range_v32(or32(v, _mm256_set1_epi8(0x20)), 'a', 26)
-#define DIGIT(v) in_range_v32(v, '0', 10)
-#define SELF(v) (v)
-#define UNDER(v) eq32(v, '_')
-#define HYPHEN(v) eq32(v, '-')
-#define MID_LETTER(v) or32(or32(eq32(v, '.'), eq32(v, '\'')), eq32(v, ':'))
-#define MID_NUM(v) or32(or32(eq32(v, '.'), eq32(v, '\'')), or32(eq32(v, ','), eq32(v, ';')))
-#define TERM(v) or32(eq32(v, '.'), or32(eq32(v, '!'), eq32(v, '?')))
-#define E2(v) eq32(v, (char)0xE2)
-#define B80(v) eq32(v, (char)0x80)
-#define B82(v) eq32(v, (char)0x82)
-#define DASH_QUOTE(v) or32(or32(eq32(v, (char)0x93), eq32(v, (char)0x94)), \
-                           or32(eq32(v, (char)0x9C), eq32(v, (char)0x9D)))
-#define APOS(v) or32(eq32(v, (char)0x98), eq32(v, (char)0x99))
-#define EURO(v) eq32(v, (char)0xAC)
-    w->alpha = BOTH(ALPHA);
-    w->digit = BOTH(DIGIT);
-    w->under = BOTH(UNDER);
-    w->high = BOTH(SELF);
-    w->hyphen = BOTH(HYPHEN);
-    w->mid_letter = BOTH(MID_LETTER);
-    w->mid_num = BOTH(MID_NUM);
-    w->term = BOTH(TERM);
-    if (w->high) {
-        w->e2 = BOTH(E2);
-        w->b80 = BOTH(B80);
-        w->b82 = BOTH(B82);
-        w->dash_quote = BOTH(DASH_QUOTE);
-        w->apos = BOTH(APOS);
-        w->euro = BOTH(EURO);
-    } else {
-        w->e2 = w->b80 = w->b82 = w->dash_quote = w->apos = w->euro = 0;
-    }
-#undef ALPHA
-#undef DIGIT
-#undef SELF
-#undef UNDER
-#undef HYPHEN
-#undef MID_LETTER
-#undef MID_NUM
-#undef TERM
-#undef E2
-#undef B80
-#undef B82
-#undef DASH_QUOTE
-#undef APOS
-#undef EURO
-}
-#undef BOTH
-#endif
-
-/* Tokens of the window at t->pos = p whose masks are w, at most max of
- * them, into toks; t->pos goes to the end of the last one. The masks are
- * of the 64 bytes from p, or of the text's last bytes padded with NUL (a
- * byte that joins nothing and is no terminal, as the end of the text).
- * Returns how many: 0 when the first token is not one the masks decide,
- * and the walk must. Inlined into each window_tokens*, so the masks stay
- * in registers. */
-__attribute__((always_inline)) static inline size_t
-window_take(tt_tokenizer *restrict t, const unsigned char *s, size_t p, tt_token *restrict toks,
-            size_t max, const window *wp)
-{
-    const window w = *wp;
-    const uint64_t word = w.alpha | w.digit | w.under;
-    const uint64_t mid_letter = w.mid_letter, mid_num = w.mid_num;
-    /* Three-byte characters the window knows (the first byte's bit): the
-     * dashes and double quotes U+2013, U+2014, U+201C, U+201D and the euro
-     * sign U+20AC, of Word_Break Other (segments alone, no terminals), and
-     * the single quotes U+2018, U+2019, MidNumLet (joined like '.' and
-     * '\'', looking three bytes on; not in the window's last four bytes,
-     * whose right neighbour it does not see). */
-    const uint64_t lead = w.e2 & (w.b80 >> 1);
-    const uint64_t other3 = (lead & (w.dash_quote >> 2)) | (w.e2 & (w.b82 >> 1) & (w.euro >> 2));
-    const uint64_t apos3 = lead & (w.apos >> 2) & ~((uint64_t)0xF << 60);
-    const uint64_t known = other3 | apos3, high = w.high & ~(known | known << 1 | known << 2);
-    const uint64_t apos_join = apos3 & (((w.alpha << 1) & (w.alpha >> 3)) |
-                                        ((w.digit << 1) & (w.digit >> 3)));
-    const uint64_t join = (mid_letter & (w.alpha << 1) & (w.alpha >> 1)) |
-                          (mid_num & (w.digit << 1) & (w.digit >> 1)) |
-                          (w.hyphen & (word << 1) & ((w.alpha | w.digit) >> 1)) |
-                          apos_join | apos_join << 1 | apos_join << 2;
-    const uint64_t in = word | join, before = in << 1;
-    uint64_t starts = in & ~before, ends = ~in & before;
-    const uint64_t stop = high | (ends & w.hyphen) |
-                          (ends & (mid_letter | mid_num) & (high >> 1)) |
-                          (ends & apos3 & (high >> 3)) | (starts & w.under) |
-                          ((uint64_t)1 << 63);
-    ends &= ((uint64_t)1 << __builtin_ctzll(stop)) - 1;
-    /* the terminals not yet passed (none is inside a token), and a bit at
-     * the end of each token that holds a letter: adding a token's letters
-     * to its bits carries out of its last bit onto the byte after it (a
-     * byte outside every token, so the carry stops there) */
-    uint64_t terminals = w.term & ~in;
-    const uint64_t word_ends = (in + w.alpha) & ~in;
-
-    size_t n = 0;
-    unsigned from = 0, a = 0, e = 0;
-    int at_start = t->at_sentence_start, suffix = t->pending_suffix;
-    while (ends && n < max) {
-        const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
-        a = (unsigned)__builtin_ctzll(starts);
-        e = (unsigned)__builtin_ctzll(ends);
-        starts ^= start_bit;
-        ends ^= end_bit;
-        uint64_t gap = terminals & (start_bit - 1);
-        if (gap) { /* a sentence end (or an abbreviation's period) */
-            terminals ^= gap;
-            t->at_sentence_start = at_start;
-            if (n) {
-                t->prev_off = toks[n - 1].off;
-                t->prev_end = p + from;
-            }
-            do {
-                size_t at = p + (size_t)__builtin_ctzll(gap);
-                terminal(t, s, at, at + 1);
-                gap &= gap - 1;
-            } while (gap);
-            at_start = t->at_sentence_start;
-            suffix = t->pending_suffix;
-        }
-        tt_token *tok = &toks[n++];
-        tok->off = p + a;
-        tok->len = e - a;
-        tok->kind = (word_ends & end_bit) ? TT_TOKEN_WORD : TT_TOKEN_NUMBER;
-        /* after "Inc." a lower-case word or a number goes on the sentence */
-        if (at_start && suffix) {
-            unsigned b = s[p + a];
-            at_start = !((b >= 'a' && b <= 'z') || (b >= '0' && b <= '9'));
-        }
-        tok->sentence_start = at_start;
-        suffix = 0;
-        at_start = 0;
-        from = e;
-    }
-    if (n) {
-        t->pos = p + e;
-        t->prev_off = p + a;
-        t->prev_end = p + e;
-        t->at_sentence_start = 0;
-        t->pending_suffix = 0;
-    }
-    return n;
-}
-
-/* window_take on the 64 bytes c, the window at p of the text s. */
+/* The tokens of the window of the 64 bytes c, the window at p of the text
+ * s, into toks (at most max). */
 #if TTI_SIMD_WIDE
 __attribute__((target("avx2"))) static size_t
 window_tokens_avx2(tt_tokenizer *restrict t, const unsigned char *s, const unsigned char *c,
@@ -1028,7 +762,7 @@ window_tokens_avx2(tt_tokenizer *restrict t, const unsigned char *s, const unsig
 {
     window w;
     window_avx2(&w, c);
-    return window_take(t, s, p, toks, max, &w);
+    return window_take_into(t, s, p, max, &w, emit_token, toks);
 }
 #endif
 
@@ -1046,7 +780,7 @@ static size_t window_tokens(tt_tokenizer *restrict t, const unsigned char *s,
     else
 #endif
         window_portable(&w, c);
-    return window_take(t, s, p, toks, max, &w);
+    return window_take_into(t, s, p, max, &w, emit_token, toks);
 }
 
 int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
@@ -1089,7 +823,7 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
                     q++;
             if (q == len || s[q] < 0x80) {
                 if (tti_wb_stage2[b] & TTI_WB_TERMINAL)
-                    terminal(t, s, p, q);
+                    tti_terminal(t, s, p, q);
                 p = q;
                 continue;
             }
@@ -1108,7 +842,7 @@ int tt_tokenizer_next(tt_tokenizer *t, tt_token *tok)
              * Terminals inside a token segment ("3.5", "e.g") are not
              * sentence ends, which is why only these segments count. */
             if (seen & SEEN_TERMINAL)
-                terminal(t, s, p, end);
+                tti_terminal(t, s, p, end);
             p = end;
             continue;
         }
@@ -1192,13 +926,18 @@ size_t tt_tokenizer_fill(tt_tokenizer *restrict t, tt_token *restrict toks, size
                 continue;
             }
         }
-        if (p < len && tti_wb_ascii_run[s[p]] && fast_token(t, s, len, p, &toks[n])) {
-            n++;
-            continue;
-        }
-        if (!tt_tokenizer_next(t, &toks[n]))
+        if (!tti_tokenizer_walk(t, &toks[n]))
             break;
         n++;
     }
     return n;
+}
+
+int tti_tokenizer_walk(tt_tokenizer *t, tt_token *tok)
+{
+    const unsigned char *s = (const unsigned char *)t->text;
+    size_t p = t->pos;
+    if (p < t->len && tti_wb_ascii_run[s[p]] && fast_token(t, s, t->len, p, tok))
+        return 1;
+    return tt_tokenizer_next(t, tok);
 }
