@@ -70,7 +70,7 @@ $(B)/libtermtide.a: $(LIB_OBJ)
 $(B)/termtide: $(CLI_OBJ) $(B)/libtermtide.a
 	$(CC) $(CFLAGS) $(LDSAN) $(LDFLAGS) $(CLI_OBJ) $(B)/libtermtide.a $(PKG_LIBS) -o $@
 
-$(B)/tests/%: tests/%.c tests/tt_test.h tests/tt_test_numeric.h $(B)/libtermtide.a | $(B)/tests
+$(B)/tests/%: tests/%.c tests/tt_test.h tests/tt_test_numeric.h tests/tt_test_termtable.h $(B)/libtermtide.a | $(B)/tests
 	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -Wno-missing-prototypes $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) $(TEST_LIBS) -o $@
 
 # Runs every test binary from the repository root; the CLI tests find the

@@ -15,8 +15,9 @@
  * n-gram). At a sentence or block start the window empties; a left-out
  * number empties it too, since "revenue of 1,200 units" holds no n-gram
  * across the figure. Complexity O(tokens × ngram_max). */
+#include "segment_internal.h" /* the tokenizer's windows; first, for its SIMD headers */
+
 #if defined(__x86_64__) && defined(__SSE2__)
-#include <emmintrin.h>
 #define TT_COUNT_SSE2 1
 #else
 #define TT_COUNT_SSE2 0
@@ -26,6 +27,7 @@
 #include "termtide/filter.h"
 #include "termtide/normalize.h"
 #include "termtide/segment.h"
+#include "termtide/simd.h"
 #include "normalize_internal.h"
 #include "termtable_internal.h"
 #include "tt_internal.h"
@@ -636,6 +638,31 @@ static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_
     return ascii_fill(c, set, k, len, table);
 }
 
+/* A hit of way w, single terms: a kept term is a pending hit (see the
+ * cache's comment), a stop-word or short word only a figure. Done without a
+ * branch on which it is, since in prose the two alternate as no predictor
+ * can follow (flags holds at most one of CACHE_STOP, CACHE_SHORT and
+ * CACHE_EMPTY). Fails only when a count reaching UINT32_MAX cannot be
+ * added to table. */
+__attribute__((always_inline)) static inline tt_status ascii_hit(tt_counter *c, ascii_way *w,
+                                                                 tt_termtable *table,
+                                                                 uint64_t *kept,
+                                                                 uint64_t *stopwords,
+                                                                 uint64_t *shorts)
+{
+    const unsigned f = w->flags;
+    const uint32_t keep = f == 0, was = w->pending;
+    w->pending = was + keep;
+    *kept += keep;
+    *stopwords += f & CACHE_STOP;
+    *shorts += (f & CACHE_SHORT) >> 1;
+    if (was == 0 && keep)
+        dirty_mark(&c->dirty, (uint32_t)(w - &c->ascii[0].way[0]) / 2);
+    else if (__builtin_expect(w->pending == UINT32_MAX, 0))
+        return way_flush(w, table);
+    return TT_OK;
+}
+
 /* Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
  * each one's cache key and set are worked out and the set's line is
  * prefetched. A batch is made ready one batch ahead of its counting, so
@@ -671,14 +698,363 @@ static inline size_t batch_ready(const tt_counter *c, tt_tokenizer *tk, const ch
     return n;
 }
 
+/* ---- the fused path ------------------------------------------------------
+ *
+ * Single terms without stemming (the default, and most of the work) skip
+ * the batches: the tokenizer's window (segment_internal.h) hands each token
+ * straight to fused_token, which makes its ASCII key and looks it up while
+ * the window's masks are still in registers. No token is written to memory
+ * and read back, and no second loop runs over the batch. The set's line is
+ * not prefetched: the lookups of successive tokens do not depend on each
+ * other, so the CPU overlaps them by itself. Tokens no window decides come
+ * from the walk (tti_tokenizer_walk) and go through the same function, so
+ * every token is counted as count_block's batches count it. */
+
+/* What the general path made of a token, for the statistics. */
+enum { GEN_KEPT, GEN_STOP, GEN_SHORT, GEN_EMPTY, GEN_OVERLONG, GEN_FAILED };
+
+/* A token the ASCII cache does not take, single terms only: through the
+ * general cache and the slow path (resolve_general). GEN_FAILED leaves the
+ * status in c->fill_status. */
+static __attribute__((noinline)) int fused_general(tt_counter *c, tt_termtable *table,
+                                                   const char *raw, size_t len,
+                                                   tt_token_kind kind)
+{
+    tt_status s = resolve_general(c, raw, len, kind, table, &c->general);
+    if (s == TT_ELIMIT && !c->fill_status)
+        return GEN_OVERLONG; /* as count_block: skipped like an overlong token */
+    if (s) {
+        c->fill_status = s;
+        return GEN_FAILED;
+    }
+    cache_entry *e = c->general.entry;
+    unsigned flags = c->general.flags;
+    if (e && !flags) {
+        if (e->pending++ == 0)
+            dirty_mark(&c->gdirty, (uint32_t)(e - c->cache));
+        else if (e->pending == UINT32_MAX && (s = entry_flush(e, table))) {
+            c->fill_status = s;
+            return GEN_FAILED;
+        }
+        return GEN_KEPT;
+    }
+    if (flags & CACHE_EMPTY)
+        return GEN_EMPTY;
+    if (flags & CACHE_STOP)
+        return GEN_STOP;
+    if (flags)
+        return GEN_SHORT;
+    s = tti_termtable_add_hashed(table, c->general.term, c->general.len, c->general.hash, 1);
+    if (s) {
+        c->fill_status = s;
+        return GEN_FAILED;
+    }
+    return GEN_KEPT;
+}
+
+typedef struct fused_state {
+    tt_counter *c;
+    tt_termtable *table;
+    const char *text;
+    size_t len;
+    int keep_numbers;
+    int failed; /* c->fill_status holds why; later tokens are not counted */
+    uint64_t words, sentences, numbers, kept, stopwords, shorts, overlong;
+} fused_state;
+
+/* One token, single terms: what count_block's loop does for it. */
+__attribute__((always_inline)) static inline void fused_token(void *ctx, size_t n, size_t off,
+                                                              size_t len, tt_token_kind kind,
+                                                              int sentence_start)
+{
+    fused_state *x = ctx;
+    tt_counter *c = x->c;
+    (void)n;
+    if (x->failed)
+        return;
+    x->words++;
+    x->sentences += sentence_start != 0;
+    if (kind == TT_TOKEN_NUMBER) {
+        x->numbers++;
+        if (!x->keep_numbers)
+            return;
+    }
+    uint64_t k[2];
+    if (len - 1 < ASCII_RAW && ascii_lower_key(x->text + off, len, x->len - off, k)) {
+        ascii_way *w = ascii_find(c, &c->ascii[ascii_slot(k, len)], k, len, x->table);
+        if (w) {
+            tt_status s = ascii_hit(c, w, x->table, &x->kept, &x->stopwords, &x->shorts);
+            if (s) {
+                c->fill_status = s;
+                x->failed = 1;
+            }
+            return;
+        }
+        if (c->fill_status) {
+            x->failed = 1;
+            return;
+        }
+    }
+    switch (fused_general(c, x->table, x->text + off, len, kind)) {
+    case GEN_KEPT: x->kept++; break;
+    case GEN_STOP: x->stopwords++; break;
+    case GEN_SHORT: x->shorts++; break;
+    case GEN_OVERLONG: x->overlong++; break;
+    case GEN_FAILED: x->failed = 1; break;
+    default: break;
+    }
+}
+
+enum { FUSED_PORTABLE, FUSED_SSE2, FUSED_AVX2 };
+
+/* The window's 64 bytes ASCII-lowercased into low (the rest of its 80
+ * bytes zero), so that a token's key is one 16-byte load from it, with no
+ * room to check and no lowercasing per token. */
+#if TTI_SIMD_WIDE
+__attribute__((target("avx2"))) static inline void window_lower_avx2(unsigned char low[80],
+                                                                     const unsigned char *c)
+{
+    for (int h = 0; h < 2; h++) {
+        __m256i v = _mm256_loadu_si256((const __m256i *)(const void *)(c + 32 * h));
+        __m256i up = _mm256_and_si256(in_range_v32(v, 'A', 26), _mm256_set1_epi8(0x20));
+        _mm256_storeu_si256((__m256i *)(void *)(low + 32 * h), _mm256_or_si256(v, up));
+    }
+    _mm_storeu_si128((__m128i *)(void *)(low + 64), _mm_setzero_si128());
+}
+#endif
+
+static inline void window_lower(unsigned char low[80], const unsigned char *c)
+{
+#if TT_COUNT_SSE2
+    for (int q = 0; q < 4; q++) {
+        __m128i v = _mm_loadu_si128((const __m128i *)(const void *)(c + 16 * q));
+        __m128i d = _mm_add_epi8(v, _mm_set1_epi8((char)(0x80 - 'A')));
+        __m128i up = _mm_and_si128(_mm_cmplt_epi8(d, _mm_set1_epi8((char)(0x80 + 26))),
+                                   _mm_set1_epi8(0x20));
+        _mm_storeu_si128((__m128i *)(void *)(low + 16 * q), _mm_or_si128(v, up));
+    }
+#else
+    for (int i = 0; i < 64; i++)
+        low[i] = (unsigned char)(c[i] >= 'A' && c[i] <= 'Z' ? c[i] | 0x20 : c[i]);
+#endif
+    memset(low + 64, 0, 16);
+}
+
+/* The key of the token of len (1..ASCII_RAW) bytes at low: 0 when it is
+ * not ASCII. */
+static inline int low_key(const unsigned char *low, size_t len, uint64_t k[2])
+{
+#if TT_COUNT_SSE2
+    __m128i v = _mm_loadu_si128((const __m128i *)(const void *)low);
+    v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
+    if (_mm_movemask_epi8(v))
+        return 0;
+    k[0] = (uint64_t)_mm_cvtsi128_si64(v);
+    k[1] = (uint64_t)_mm_cvtsi128_si64(_mm_unpackhi_epi64(v, v));
+    return 1;
+#else
+    uint64_t b[2];
+    memcpy(b, low, sizeof b);
+    k[0] = b[0] & key_mask[len][0];
+    k[1] = b[1] & key_mask[len][1];
+    return !((k[0] | k[1]) & HIGH_BITS);
+#endif
+}
+
+/* The tokens of the window at tk->pos = p (masks w, bytes c, lowercased in
+ * low), counted: what window_take_into and fused_token do, token for
+ * token, with the rare work (terminals, a sentence's first token) out of
+ * the way of the common. Returns how many tokens (0: the walk must take the
+ * next one). */
+__attribute__((always_inline)) static inline size_t
+fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const window *w,
+             const unsigned char *low, fused_state *x)
+{
+    const window_tokens_of d = window_decide(w);
+    uint64_t starts = d.starts, ends = d.ends, terminals = d.terminals;
+    if (!ends)
+        return 0;
+    const uint64_t number_ends = ~d.word_ends;
+    tt_counter *const c = x->c;
+    ascii_set *const ascii = c->ascii;
+    const int keep_numbers = x->keep_numbers;
+    uint64_t words = 0, sentences = 0, numbers = 0, kept = 0, stopwords = 0, shorts = 0;
+    unsigned from = 0, a = 0, e = 0, prev_a = 0;
+    size_t n = 0;
+    int at_start = t->at_sentence_start, suffix = t->pending_suffix;
+    while (ends) {
+        const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
+        a = (unsigned)__builtin_ctzll(starts);
+        e = (unsigned)__builtin_ctzll(ends);
+        starts ^= start_bit;
+        ends ^= end_bit;
+        const uint64_t gap = terminals & (start_bit - 1);
+        if (__builtin_expect((gap != 0) | at_start, 0)) {
+            if (gap) {
+                terminals ^= gap;
+                window_terminals(t, s, p, gap, n != 0, prev_a, from, &at_start, &suffix);
+            }
+            sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
+            at_start = 0;
+            suffix = 0;
+        }
+        n++;
+        prev_a = a;
+        from = e;
+        words++;
+        const size_t len = e - a;
+        if (end_bit & number_ends) {
+            numbers++;
+            if (!keep_numbers)
+                continue;
+        }
+        uint64_t k[2];
+        if (len <= ASCII_RAW) {
+            if (low_key(low + a, len, k)) {
+                ascii_way *wy = ascii_find(c, &ascii[ascii_slot(k, len)], k, len, x->table);
+                if (wy) {
+                    tt_status st = ascii_hit(c, wy, x->table, &kept, &stopwords, &shorts);
+                    if (st) {
+                        c->fill_status = st;
+                        x->failed = 1;
+                        break;
+                    }
+                    continue;
+                }
+                if (c->fill_status) {
+                    x->failed = 1;
+                    break;
+                }
+            }
+        }
+        switch (fused_general(c, x->table, (const char *)s + p + a, len,
+                              (end_bit & number_ends) ? TT_TOKEN_NUMBER : TT_TOKEN_WORD)) {
+        case GEN_KEPT: kept++; break;
+        case GEN_STOP: stopwords++; break;
+        case GEN_SHORT: shorts++; break;
+        case GEN_OVERLONG: x->overlong++; break;
+        case GEN_FAILED: x->failed = 1; break;
+        default: break;
+        }
+        if (x->failed)
+            break;
+    }
+    x->words += words;
+    x->sentences += sentences;
+    x->numbers += numbers;
+    x->kept += kept;
+    x->stopwords += stopwords;
+    x->shorts += shorts;
+    t->pos = p + e;
+    t->prev_off = p + a;
+    t->prev_end = p + e;
+    t->at_sentence_start = 0;
+    t->pending_suffix = 0;
+    return n;
+}
+
+
+/* count_block for single terms with the ASCII cache, with the windows'
+ * masks made as isa says (a constant at each call). */
+__attribute__((always_inline)) static inline tt_status
+fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt_doc_stats *st,
+            int isa)
+{
+    const unsigned char *s = (const unsigned char *)text;
+    tt_tokenizer tk;
+    tt_tokenizer_init(&tk, text, len);
+    fused_state x = { .c = c, .table = table, .text = text, .len = len,
+                      .keep_numbers = c->opt.keep_numbers };
+    for (;;) {
+        size_t p = tk.pos;
+        if (p < len) {
+            unsigned char pad[64];
+            const unsigned char *w64 = s + p;
+            if (len - p < 64) {
+                /* the text's last bytes (a paragraph's, mostly), padded */
+                memcpy(pad, s + p, len - p);
+                memset(pad + (len - p), 0, 64 - (len - p));
+                w64 = pad;
+            }
+            window w;
+#if TTI_SIMD_WIDE
+            if (isa == FUSED_AVX2)
+                window_avx2(&w, w64);
+            else
+#endif
+#if defined(__SSE2__)
+                if (isa == FUSED_SSE2)
+                window_sse2(&w, w64);
+            else
+#endif
+                window_portable(&w, w64);
+            unsigned char low[80];
+#if TTI_SIMD_WIDE
+            if (isa >= FUSED_AVX2)
+                window_lower_avx2(low, w64);
+            else
+#endif
+                window_lower(low, w64);
+            size_t k = fused_window(&tk, s, p, &w, low, &x);
+            if (x.failed)
+                break;
+            if (k)
+                continue;
+        }
+        tt_token tok;
+        if (!tti_tokenizer_walk(&tk, &tok))
+            break;
+        fused_token(&x, 0, tok.off, tok.len, tok.kind, tok.sentence_start);
+        if (x.failed)
+            break;
+    }
+    tt_status s_ = TT_OK;
+    if (x.failed) {
+        s_ = c->fill_status;
+        c->fill_status = TT_OK;
+    }
+    st->words_read += x.words;
+    st->sentences += x.sentences;
+    st->numbers += x.numbers;
+    st->terms_kept += x.kept;
+    st->stopwords += x.stopwords;
+    st->short_words += x.shorts;
+    st->overlong += x.overlong + tk.overlong;
+    return s_;
+}
+
+#if TTI_SIMD_WIDE
+__attribute__((target("avx2"))) static tt_status
+fused_block_avx2(tt_counter *c, const char *text, size_t len, tt_termtable *table,
+                 tt_doc_stats *st)
+{
+    return fused_block(c, text, len, table, st, FUSED_AVX2);
+}
+#endif
+
+static tt_status fused_block_any(tt_counter *c, const char *text, size_t len, tt_termtable *table,
+                                 tt_doc_stats *st)
+{
+#if TTI_SIMD_WIDE
+    if (tti_use_simd && tti_simd_level() >= TT_SIMD_AVX2)
+        return fused_block_avx2(c, text, len, table, st);
+#endif
+#if defined(__SSE2__)
+    if (tti_use_simd)
+        return fused_block(c, text, len, table, st, FUSED_SSE2);
+#endif
+    return fused_block(c, text, len, table, st, FUSED_PORTABLE);
+}
+
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
                              tt_termtable *table, tt_doc_stats *st)
 {
+    if (c->opt.ngram_max == 1 && c->ascii)
+        return fused_block_any(c, text, len, table, st);
     tt_tokenizer tk;
     tt_status s;
     const int unigram_only = c->opt.ngram_max == 1;
     const int keep_numbers = c->opt.keep_numbers;
-    ascii_set *const ascii = c->ascii;
     token_batch batch[2];
     /* the stats in locals, written back at the end (stores through the
      * cache's pointers would otherwise make every increment a memory
@@ -722,20 +1098,7 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
                 w = ascii_find(c, b->sets[ti], b->keys[ti], tok->len, table);
             if (w) {
                 if (unigram_only) {
-                    /* A kept term is a pending hit (see the cache's comment), a
-                     * stop-word or short word only a figure: done without a
-                     * branch on which it is, since in prose the two alternate
-                     * as no predictor can follow (flags holds at most one of
-                     * CACHE_STOP, CACHE_SHORT and CACHE_EMPTY). */
-                    const unsigned f = w->flags;
-                    const uint32_t keep = f == 0, was = w->pending;
-                    w->pending = was + keep;
-                    kept += keep;
-                    stopwords += f & CACHE_STOP;
-                    shorts += (f & CACHE_SHORT) >> 1;
-                    if (was == 0 && keep)
-                        dirty_mark(&c->dirty, (uint32_t)(w - &ascii[0].way[0]) / 2);
-                    else if (w->pending == UINT32_MAX && (s = way_flush(w, table)))
+                    if ((s = ascii_hit(c, w, table, &kept, &stopwords, &shorts)))
                         goto out;
                     continue;
                 }

@@ -215,21 +215,16 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
 #undef BOTH
 #endif
 
-/* What window_take_into hands each token to: ctx, the token's number in
- * this window (from 0), and the token (as tt_token's fields). */
-typedef void (*tti_window_emit)(void *ctx, size_t n, size_t off, size_t len, tt_token_kind kind,
-                                int sentence_start);
+/* What the masks of a window decide: the tokens' start bits and end bits
+ * (the i-th end is the i-th start's token's end; the ends stop before the
+ * first byte the masks cannot decide, the starts do not), the terminals
+ * . ! ? outside tokens, and word_ends: a token's end bit is in it when the
+ * token holds a letter (a word; else a number). */
+typedef struct window_tokens_of {
+    uint64_t starts, ends, terminals, word_ends;
+} window_tokens_of;
 
-/* The tokens of the window at t->pos = p whose masks are w, at most max of
- * them, each to emit(ctx, ...) in text order; t->pos goes to the end of the
- * last one. The masks are of the 64 bytes from p, or of the text's last
- * bytes padded with NUL (a byte that joins nothing and is no terminal, as
- * the end of the text). Returns how many: 0 when the first token is not one
- * the masks decide, and the walk must. Always inlined, with emit (a
- * constant at every call), so the masks stay in registers. */
-__attribute__((always_inline)) static inline size_t
-window_take_into(tt_tokenizer *restrict t, const unsigned char *s, size_t p, size_t max,
-                 const window *wp, tti_window_emit emit, void *ctx)
+__attribute__((always_inline)) static inline window_tokens_of window_decide(const window *wp)
 {
     const window w = *wp;
     const uint64_t word = w.alpha | w.digit | w.under;
@@ -251,18 +246,76 @@ window_take_into(tt_tokenizer *restrict t, const unsigned char *s, size_t p, siz
                           (w.hyphen & (word << 1) & ((w.alpha | w.digit) >> 1)) |
                           apos_join | apos_join << 1 | apos_join << 2;
     const uint64_t in = word | join, before = in << 1;
-    uint64_t starts = in & ~before, ends = ~in & before;
-    const uint64_t stop = high | (ends & w.hyphen) |
-                          (ends & (mid_letter | mid_num) & (high >> 1)) |
-                          (ends & apos3 & (high >> 3)) | (starts & w.under) |
+    window_tokens_of r;
+    r.starts = in & ~before;
+    r.ends = ~in & before;
+    const uint64_t stop = high | (r.ends & w.hyphen) |
+                          (r.ends & (mid_letter | mid_num) & (high >> 1)) |
+                          (r.ends & apos3 & (high >> 3)) | (r.starts & w.under) |
                           ((uint64_t)1 << 63);
-    ends &= ((uint64_t)1 << __builtin_ctzll(stop)) - 1;
+    r.ends &= ((uint64_t)1 << __builtin_ctzll(stop)) - 1;
     /* the terminals not yet passed (none is inside a token), and a bit at
      * the end of each token that holds a letter: adding a token's letters
      * to its bits carries out of its last bit onto the byte after it (a
      * byte outside every token, so the carry stops there) */
-    uint64_t terminals = w.term & ~in;
-    const uint64_t word_ends = (in + w.alpha) & ~in;
+    r.terminals = w.term & ~in;
+    r.word_ends = (in + w.alpha) & ~in;
+    return r;
+}
+
+/* The terminals gap (bits of the window at p, all before the next token)
+ * passed: each a sentence end or an abbreviation's period (tti_terminal),
+ * the last token before them (when have_prev) at prev_a..prev_end of the
+ * window. *at_start and *suffix are the tokenizer's pending sentence start
+ * and "Inc."-like suffix, before and after. */
+static inline void window_terminals(tt_tokenizer *t, const unsigned char *s, size_t p,
+                                    uint64_t gap, int have_prev, unsigned prev_a,
+                                    unsigned prev_end, int *at_start, int *suffix)
+{
+    t->at_sentence_start = *at_start;
+    if (have_prev) {
+        t->prev_off = p + prev_a;
+        t->prev_end = p + prev_end;
+    }
+    for (; gap; gap &= gap - 1) {
+        size_t at = p + (size_t)__builtin_ctzll(gap);
+        tti_terminal(t, s, at, at + 1);
+    }
+    *at_start = t->at_sentence_start;
+    *suffix = t->pending_suffix;
+}
+
+/* Whether the token starting at first starts a sentence, given the pending
+ * sentence start and suffix: after "Inc." a lower-case word or a number
+ * goes on the sentence. */
+static inline int window_suffix_rule(const unsigned char *first, int at_start, int suffix)
+{
+    if (at_start && suffix) {
+        unsigned b = *first;
+        return !((b >= 'a' && b <= 'z') || (b >= '0' && b <= '9'));
+    }
+    return at_start;
+}
+
+/* What window_take_into hands each token to: ctx, the token's number in
+ * this window (from 0), and the token (as tt_token's fields). */
+typedef void (*tti_window_emit)(void *ctx, size_t n, size_t off, size_t len, tt_token_kind kind,
+                                int sentence_start);
+
+/* The tokens of the window at t->pos = p whose masks are w, at most max of
+ * them, each to emit(ctx, ...) in text order; t->pos goes to the end of the
+ * last one. The masks are of the 64 bytes from p, or of the text's last
+ * bytes padded with NUL (a byte that joins nothing and is no terminal, as
+ * the end of the text). Returns how many: 0 when the first token is not one
+ * the masks decide, and the walk must. Always inlined, with emit (a
+ * constant at every call), so the masks stay in registers. */
+__attribute__((always_inline)) static inline size_t
+window_take_into(tt_tokenizer *restrict t, const unsigned char *s, size_t p, size_t max,
+                 const window *wp, tti_window_emit emit, void *ctx)
+{
+    const window_tokens_of d = window_decide(wp);
+    uint64_t starts = d.starts, ends = d.ends, terminals = d.terminals;
+    const uint64_t word_ends = d.word_ends;
 
     size_t n = 0;
     unsigned from = 0, a = 0, e = 0, prev_a = 0;
@@ -273,27 +326,12 @@ window_take_into(tt_tokenizer *restrict t, const unsigned char *s, size_t p, siz
         e = (unsigned)__builtin_ctzll(ends);
         starts ^= start_bit;
         ends ^= end_bit;
-        uint64_t gap = terminals & (start_bit - 1);
-        if (gap) { /* a sentence end (or an abbreviation's period) */
+        const uint64_t gap = terminals & (start_bit - 1);
+        if (gap) {
             terminals ^= gap;
-            t->at_sentence_start = at_start;
-            if (n) {
-                t->prev_off = p + prev_a;
-                t->prev_end = p + from;
-            }
-            do {
-                size_t at = p + (size_t)__builtin_ctzll(gap);
-                tti_terminal(t, s, at, at + 1);
-                gap &= gap - 1;
-            } while (gap);
-            at_start = t->at_sentence_start;
-            suffix = t->pending_suffix;
+            window_terminals(t, s, p, gap, n != 0, prev_a, from, &at_start, &suffix);
         }
-        /* after "Inc." a lower-case word or a number goes on the sentence */
-        if (at_start && suffix) {
-            unsigned b = s[p + a];
-            at_start = !((b >= 'a' && b <= 'z') || (b >= '0' && b <= '9'));
-        }
+        at_start = window_suffix_rule(s + p + a, at_start, suffix);
         emit(ctx, n, p + a, e - a, (word_ends & end_bit) ? TT_TOKEN_WORD : TT_TOKEN_NUMBER,
              at_start);
         n++;

@@ -3,6 +3,7 @@
  * numbers left out or kept, minimum length, stemming, count classes, and
  * the token caches giving exactly the terms of the slow path. */
 #include "tt_test.h"
+#include "tt_test_termtable.h"
 
 #include "termtide/alloc.h"
 #include "termtide/count.h"
@@ -257,20 +258,7 @@ static void slow_path(const char *text, size_t len, const tt_termtable *stop, si
 
 static void assert_same_table(const tt_termtable *got, const tt_termtable *want)
 {
-    tt_term_entry *g, *w;
-    size_t ng, nw;
-    assert_int_equal(tt_termtable_sorted(got, &g, &ng), TT_OK);
-    assert_int_equal(tt_termtable_sorted(want, &w, &nw), TT_OK);
-    assert_int_equal(ng, nw);
-    for (size_t i = 0; i < ng; i++) {
-        if (g[i].len != w[i].len || memcmp(g[i].term, w[i].term, g[i].len) != 0 ||
-            g[i].count != w[i].count)
-            fail_msg("entry %zu: counted \"%.*s\" %llu, slow path \"%.*s\" %llu", i,
-                     (int)g[i].len, g[i].term, (unsigned long long)g[i].count, (int)w[i].len,
-                     w[i].term, (unsigned long long)w[i].count);
-    }
-    tt_free(g);
-    tt_free(w);
+    tt_test_same_table(got, want, "against the slow path");
 }
 
 /* Every ASCII token shape — lower, upper, mixed and capitalised case;

@@ -11,12 +11,17 @@
  * Tokens are written as "text/W" (word) or "text/N" (number), with a
  * leading "^" for a sentence start, separated by single spaces. */
 #include "tt_test.h"
+#include "tt_test_termtable.h"
 
 #include <time.h>
 
+#include "termtide/alloc.h"
+#include "termtide/count.h"
 #include "termtide/limits.h"
+#include "termtide/normalize.h"
 #include "termtide/segment.h"
 #include "termtide/simd.h"
+#include "termtide/termtable.h"
 
 /* Renders every token of text into out. */
 static void render(const char *text, size_t len, char *out, size_t size,
@@ -456,10 +461,23 @@ static void test_abbreviations(void **state)
 
 #define NALPHA(a) (sizeof(a) / sizeof(a)[0])
 
-/* cases random texts of up to maxch characters from alphabet. */
+/* cases random texts of up to maxch characters from alphabet. Each goes
+ * through the tokenizer (a token at a time, and in batches) and through a
+ * counter with the default options, which takes the windows' tokens itself
+ * (its fused path, src/count.c): the tokens, sentence starts and numbers
+ * must be the reference's, and the terms those tt_normalize makes of the
+ * reference's words. */
 static void random_against_reference(const rnd_char *alphabet, size_t nalpha, int cases,
                                      size_t maxch, uint32_t x)
 {
+    tt_count_options opt;
+    tt_count_options_init(&opt);
+    tt_counter *counter = tt_counter_new(&opt);
+    assert_non_null(counter);
+    tt_normalizer nz;
+    tt_normalizer_init(&nz);
+    tt_buf normal;
+    tt_buf_init(&normal, 0);
     enum { MAXCH = 400 };
     char text[MAXCH * 4 + 1];
     unsigned char word_at[MAXCH * 4], term_at[MAXCH * 4];
@@ -497,6 +515,9 @@ static void random_against_reference(const rnd_char *alphabet, size_t nalpha, in
         int at_start = 1, suffix = 0;
         size_t prev_a = (size_t)-1, prev_b = (size_t)-1;
         want[0] = '\0';
+        tt_termtable *ref_terms = tt_termtable_new();
+        assert_non_null(ref_terms);
+        uint64_t ref_tokens = 0, ref_sentences = 0, ref_numbers = 0, ref_overlong = 0;
         for (size_t i = 0; i < nseg;) {
             int word = 0, term = 0;
             for (size_t q = seg_a[i]; q < seg_b[i]; q++) {
@@ -537,6 +558,18 @@ static void random_against_reference(const rnd_char *alphabet, size_t nalpha, in
             o += (size_t)snprintf(want + o, sizeof want - o, "%s%s%s%.*s", o ? " " : "",
                                   at_start ? "^" : "", (word & 1) ? "" : "#",
                                   (int)(end - start), text + start);
+            ref_tokens++;
+            ref_sentences += (uint64_t)at_start;
+            if (!(word & 1)) {
+                ref_numbers++;
+            } else {
+                tt_status ns = tt_normalize(&nz, text + start, end - start, &normal);
+                if (ns == TT_ELIMIT)
+                    ref_overlong++; /* the counter skips such a term (count.c) */
+                else if (assert_int_equal(ns, TT_OK), normal.len)
+                    assert_int_equal(tt_termtable_add(ref_terms, normal.data, normal.len, 1),
+                                     TT_OK);
+            }
             at_start = 0;
             prev_a = start;
             prev_b = end;
@@ -574,7 +607,34 @@ static void random_against_reference(const rnd_char *alphabet, size_t nalpha, in
                 fail();
             }
         }
+
+        tt_termtable *got_terms = tt_termtable_new();
+        assert_non_null(got_terms);
+        tt_doc_stats st;
+        memset(&st, 0, sizeof st);
+        assert_int_equal(tt_counter_count_text(counter, text, len, got_terms, &st), TT_OK);
+        if (st.words_read != ref_tokens || st.sentences != ref_sentences ||
+            st.numbers != ref_numbers || st.overlong != ref_overlong) {
+            print_error("case %d, text (%zu bytes):", k, len);
+            for (size_t q = 0; q < len; q++)
+                print_error(" %02X", (unsigned char)text[q]);
+            fail_msg("\n  counter: %llu tokens, %llu sentences, %llu numbers, %llu overlong"
+                     "\n  want:    %llu tokens, %llu sentences, %llu numbers, %llu overlong\n  %s",
+                     (unsigned long long)st.words_read, (unsigned long long)st.sentences,
+                     (unsigned long long)st.numbers, (unsigned long long)st.overlong,
+                     (unsigned long long)ref_tokens, (unsigned long long)ref_sentences,
+                     (unsigned long long)ref_numbers, (unsigned long long)ref_overlong, want);
+        }
+        char what[32];
+        snprintf(what, sizeof what, "case %d", k);
+        tt_test_same_table(got_terms, ref_terms, what);
+        assert_int_equal(st.terms_kept, tt_termtable_total(ref_terms));
+        tt_termtable_free(got_terms);
+        tt_termtable_free(ref_terms);
     }
+    tt_buf_release(&normal);
+    tt_normalizer_release(&nz);
+    tt_counter_free(counter);
 }
 
 /* Short texts, and texts long enough to cross the tokenizer's 64-byte chunks
