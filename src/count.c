@@ -864,8 +864,9 @@ static inline int low_key(const unsigned char *low, size_t len, uint64_t k[2])
 /* The tokens of the window at tk->pos = p (masks w, bytes c, lowercased in
  * low), counted: what window_take_into and fused_token do, token for
  * token, with the rare work (terminals, a sentence's first token) out of
- * the way of the common. Returns how many tokens (0: the walk must take the
- * next one). */
+ * the way of the common, and the tallies that do not depend on the cache
+ * (tokens, numbers) taken from the masks. Returns how many tokens (0: the
+ * walk must take the next one). */
 __attribute__((always_inline)) static inline size_t
 fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const window *w,
              const unsigned char *low, fused_state *x)
@@ -874,14 +875,20 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     uint64_t starts = d.starts, ends = d.ends, terminals = d.terminals;
     if (!ends)
         return 0;
-    const uint64_t number_ends = ~d.word_ends;
+    const uint64_t number_ends = ends & ~d.word_ends;
+    const size_t n = (size_t)__builtin_popcountll(ends);
+    x->words += n;
+    x->numbers += (uint64_t)__builtin_popcountll(number_ends);
+    /* numbers left out: their end bits skip the lookup, and only the start
+     * bits of tokens matter from here (a gap is found from the next start) */
+    const uint64_t skip = x->keep_numbers ? 0 : number_ends;
     tt_counter *const c = x->c;
     ascii_set *const ascii = c->ascii;
-    const int keep_numbers = x->keep_numbers;
-    uint64_t words = 0, sentences = 0, numbers = 0, kept = 0, stopwords = 0, shorts = 0;
+    /* hits by CACHE_* flags: [0] kept, [CACHE_STOP], [CACHE_SHORT], [CACHE_EMPTY] */
+    uint64_t tally[8] = { 0 };
+    uint64_t sentences = 0;
     unsigned from = 0, a = 0, e = 0, prev_a = 0;
-    size_t n = 0;
-    int at_start = t->at_sentence_start, suffix = t->pending_suffix;
+    int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
     while (ends) {
         const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
         a = (unsigned)__builtin_ctzll(starts);
@@ -892,46 +899,49 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         if (__builtin_expect((gap != 0) | at_start, 0)) {
             if (gap) {
                 terminals ^= gap;
-                window_terminals(t, s, p, gap, n != 0, prev_a, from, &at_start, &suffix);
+                window_terminals(t, s, p, gap, !first, prev_a, from, &at_start, &suffix);
             }
             sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
             at_start = 0;
             suffix = 0;
         }
-        n++;
+        first = 0;
         prev_a = a;
         from = e;
-        words++;
+        if (end_bit & skip)
+            continue;
         const size_t len = e - a;
-        if (end_bit & number_ends) {
-            numbers++;
-            if (!keep_numbers)
-                continue;
-        }
         uint64_t k[2];
-        if (len <= ASCII_RAW) {
-            if (low_key(low + a, len, k)) {
-                ascii_way *wy = ascii_find(c, &ascii[ascii_slot(k, len)], k, len, x->table);
-                if (wy) {
-                    tt_status st = ascii_hit(c, wy, x->table, &kept, &stopwords, &shorts);
+        if (len <= ASCII_RAW && low_key(low + a, len, k)) {
+            ascii_way *wy = ascii_find(c, &ascii[ascii_slot(k, len)], k, len, x->table);
+            if (__builtin_expect(wy != NULL, 1)) {
+                /* no branch on what the word is (see ascii_hit) */
+                const unsigned f = wy->flags;
+                const uint32_t keep = f == 0, was = wy->pending;
+                tally[f]++;
+                wy->pending = was + keep;
+                if (was == 0 && keep)
+                    dirty_mark(&c->dirty, (uint32_t)(wy - &ascii[0].way[0]) / 2);
+                else if (__builtin_expect(wy->pending == UINT32_MAX, 0)) {
+                    tt_status st = way_flush(wy, x->table);
                     if (st) {
                         c->fill_status = st;
                         x->failed = 1;
                         break;
                     }
-                    continue;
                 }
-                if (c->fill_status) {
-                    x->failed = 1;
-                    break;
-                }
+                continue;
+            }
+            if (c->fill_status) {
+                x->failed = 1;
+                break;
             }
         }
         switch (fused_general(c, x->table, (const char *)s + p + a, len,
                               (end_bit & number_ends) ? TT_TOKEN_NUMBER : TT_TOKEN_WORD)) {
-        case GEN_KEPT: kept++; break;
-        case GEN_STOP: stopwords++; break;
-        case GEN_SHORT: shorts++; break;
+        case GEN_KEPT: tally[0]++; break;
+        case GEN_STOP: tally[CACHE_STOP]++; break;
+        case GEN_SHORT: tally[CACHE_SHORT]++; break;
         case GEN_OVERLONG: x->overlong++; break;
         case GEN_FAILED: x->failed = 1; break;
         default: break;
@@ -939,12 +949,10 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         if (x->failed)
             break;
     }
-    x->words += words;
     x->sentences += sentences;
-    x->numbers += numbers;
-    x->kept += kept;
-    x->stopwords += stopwords;
-    x->shorts += shorts;
+    x->kept += tally[0];
+    x->stopwords += tally[CACHE_STOP];
+    x->shorts += tally[CACHE_SHORT];
     t->pos = p + e;
     t->prev_off = p + a;
     t->prev_end = p + e;
@@ -952,7 +960,6 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     t->pending_suffix = 0;
     return n;
 }
-
 
 /* count_block for single terms with the ASCII cache, with the windows'
  * masks made as isa says (a constant at each call). */
@@ -1024,7 +1031,7 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
 }
 
 #if TTI_SIMD_WIDE
-__attribute__((target("avx2"))) static tt_status
+__attribute__((target("avx2,bmi,bmi2"))) static tt_status
 fused_block_avx2(tt_counter *c, const char *text, size_t len, tt_termtable *table,
                  tt_doc_stats *st)
 {
@@ -1032,11 +1039,20 @@ fused_block_avx2(tt_counter *c, const char *text, size_t len, tt_termtable *tabl
 }
 #endif
 
+/* Whether the CPU has BMI1 and BMI2 (every AVX2 CPU made so far has). */
+static int fused_bmi(void)
+{
+    static int has = -1;
+    if (has < 0)
+        has = __builtin_cpu_supports("bmi") && __builtin_cpu_supports("bmi2");
+    return has;
+}
+
 static tt_status fused_block_any(tt_counter *c, const char *text, size_t len, tt_termtable *table,
                                  tt_doc_stats *st)
 {
 #if TTI_SIMD_WIDE
-    if (tti_use_simd && tti_simd_level() >= TT_SIMD_AVX2)
+    if (tti_use_simd && tti_simd_level() >= TT_SIMD_AVX2 && fused_bmi())
         return fused_block_avx2(c, text, len, table, st);
 #endif
 #if defined(__SSE2__)
