@@ -34,6 +34,13 @@
 
 #define MAX_N 3
 
+/* The fused path adds a kept hit to its way's pending count with no check
+ * for overflow: instead, once FUSED_FLUSH tokens have been taken (from
+ * windows and the walk) since the last flush, all pending hits go to the
+ * table, checked after each window, so no count held (at most FUSED_FLUSH
+ * plus a window's 64) comes near UINT32_MAX. */
+#define FUSED_FLUSH ((uint64_t)1 << 31)
+
 /* Token caches: from a token's raw bytes to what the slow path makes of
  * it: the final term (normalized, stemmed if asked), its table hash, and
  * whether it is a stop-word or too short. Normalization is a pure function
@@ -167,6 +174,8 @@ struct tt_counter {
     evicted ring[EVICT_RING]; /* evicted hits waiting (ring_n from ring_head) */
     size_t ring_head, ring_n;
     resolved general;   /* the last answer of resolve_general */
+    uint64_t unflushed;   /* tokens the fused path took since the last flush */
+    uint64_t flush_every; /* FUSED_FLUSH (tests set less) */
 };
 
 void tt_count_options_init(tt_count_options *o)
@@ -237,6 +246,7 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
     if (!c)
         return NULL;
     c->opt = *opt;
+    c->flush_every = FUSED_FLUSH;
     tt_normalizer_init(&c->norm);
     tt_buf_init(&c->normal, TT_LIMIT_TOKEN_BYTES * 8);
     tt_buf_init(&c->stemmed, TT_LIMIT_TOKEN_BYTES * 8);
@@ -520,18 +530,26 @@ static inline int ascii_lower_key(const char *raw, size_t len, size_t room, uint
 #endif
 }
 
-/* The set of a key: one multiply-shift of the two words folded together
- * (the second rotated, so that equal halves do not cancel); the top bits of
- * a product by an odd constant depend on every bit of the other factor. */
+/* The set of a key: one multiply-shift of the two words folded together;
+ * the top bits of a product by an odd constant depend on every bit of the
+ * other factor. The length is not mixed in, nor compared below: a token
+ * never holds a NUL byte, so the zero-padded key alone tells lengths apart
+ * (and an unused way's all-zero key matches no token). */
+static inline size_t ascii_slot_of(uint64_t folded)
+{
+    return (size_t)((folded * 0x9E3779B97F4A7C15ULL) >> (64 - ASCII_BITS));
+}
+
 static inline size_t ascii_slot(const uint64_t k[2], size_t len)
 {
-    uint64_t folded = k[0] ^ ((k[1] << 29) | (k[1] >> 35)) ^ len;
-    return (size_t)((folded * 0x9E3779B97F4A7C15ULL) >> (64 - ASCII_BITS));
+    (void)len;
+    return ascii_slot_of(k[0] ^ k[1]);
 }
 
 static inline int ascii_way_holds(const ascii_way *w, const uint64_t k[2], size_t len)
 {
-    return ((w->key[0] ^ k[0]) | (w->key[1] ^ k[1]) | (w->raw_len ^ len)) == 0;
+    (void)len;
+    return ((w->key[0] ^ k[0]) | (w->key[1] ^ k[1])) == 0;
 }
 
 /* Adds a way's pending hits to table. */
@@ -620,6 +638,20 @@ static ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
     return w;
 }
 
+/* ascii_find past way 0: way 1 (moved to way 0) or a fill. */
+static ascii_way *ascii_find_rest(tt_counter *c, ascii_set *set, const uint64_t k[2], size_t len,
+                                  tt_termtable *table)
+{
+    ascii_way *w = &set->way[0];
+    if (ascii_way_holds(&set->way[1], k, len)) {
+        ascii_way tmp = set->way[1];
+        set->way[1] = *w;
+        *w = tmp;
+        return w;
+    }
+    return ascii_fill(c, set, k, len, table);
+}
+
 /* The way of set holding the lowercased key k of a token of len bytes,
  * filled on a miss; NULL when the token holds '`' (or filling it failed:
  * c->fill_status). */
@@ -629,13 +661,7 @@ static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_
     ascii_way *w = &set->way[0];
     if (ascii_way_holds(w, k, len))
         return w;
-    if (ascii_way_holds(&set->way[1], k, len)) {
-        ascii_way tmp = set->way[1];
-        set->way[1] = *w;
-        *w = tmp;
-        return w;
-    }
-    return ascii_fill(c, set, k, len, table);
+    return ascii_find_rest(c, set, k, len, table);
 }
 
 /* A hit of way w, single terms: a kept term is a pending hit (see the
@@ -807,6 +833,7 @@ __attribute__((always_inline)) static inline void fused_token(void *ctx, size_t 
 
 enum { FUSED_PORTABLE, FUSED_SSE2, FUSED_AVX2 };
 
+
 /* The window's 64 bytes ASCII-lowercased into low (the rest of its 80
  * bytes zero), so that a token's key is one 16-byte load from it, with no
  * room to check and no lowercasing per token. */
@@ -887,23 +914,28 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     /* hits by CACHE_* flags: [0] kept, [CACHE_STOP], [CACHE_SHORT], [CACHE_EMPTY] */
     uint64_t tally[8] = { 0 };
     uint64_t sentences = 0;
-    unsigned from = 0, a = 0, e = 0, prev_a = 0;
+    size_t from = 0, a = 0, e = 0, prev_a = 0;
     int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
+    /* all ones while a sentence start is pending from before the window:
+     * the first token then takes the rare branch as a gap would */
+    uint64_t pending_start = at_start ? ~(uint64_t)0 : 0;
     while (ends) {
         const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
-        a = (unsigned)__builtin_ctzll(starts);
-        e = (unsigned)__builtin_ctzll(ends);
+        a = (size_t)__builtin_ctzll(starts);
+        e = (size_t)__builtin_ctzll(ends);
         starts ^= start_bit;
         ends ^= end_bit;
         const uint64_t gap = terminals & (start_bit - 1);
-        if (__builtin_expect((gap != 0) | at_start, 0)) {
+        if (__builtin_expect((gap | pending_start) != 0, 0)) {
             if (gap) {
                 terminals ^= gap;
-                window_terminals(t, s, p, gap, !first, prev_a, from, &at_start, &suffix);
+                window_terminals(t, s, p, gap, !first, (unsigned)prev_a, (unsigned)from,
+                                 &at_start, &suffix);
             }
             sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
             at_start = 0;
             suffix = 0;
+            pending_start = 0;
         }
         first = 0;
         prev_a = a;
@@ -911,25 +943,45 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         if (end_bit & skip)
             continue;
         const size_t len = e - a;
-        uint64_t k[2];
-        if (len <= ASCII_RAW && low_key(low + a, len, k)) {
-            ascii_way *wy = ascii_find(c, &ascii[ascii_slot(k, len)], k, len, x->table);
+        ascii_way *wy = NULL;
+        int ascii_key_ok = 0;
+        if (len <= ASCII_RAW) {
+#if TT_COUNT_SSE2
+            /* the key stays in a register: folded, and compared with way
+             * 0's in one go */
+            __m128i v = _mm_loadu_si128((const __m128i *)(const void *)(low + a));
+            v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
+            if (!_mm_movemask_epi8(v)) {
+                ascii_key_ok = 1;
+                ascii_set *set = &ascii[ascii_slot_of(
+                    (uint64_t)_mm_cvtsi128_si64(_mm_xor_si128(v, _mm_unpackhi_epi64(v, v))))];
+                __m128i eq = _mm_cmpeq_epi8(
+                    v, _mm_load_si128((const __m128i *)(const void *)set->way[0].key));
+                if (_mm_movemask_epi8(eq) == 0xFFFF) {
+                    wy = &set->way[0];
+                } else {
+                    uint64_t k[2];
+                    _mm_storeu_si128((__m128i *)(void *)k, v);
+                    wy = ascii_find_rest(c, set, k, len, x->table);
+                }
+            }
+#else
+            uint64_t k[2];
+            if (low_key(low + a, len, k)) {
+                ascii_key_ok = 1;
+                wy = ascii_find(c, &ascii[ascii_slot(k, len)], k, len, x->table);
+            }
+#endif
+        }
+        if (ascii_key_ok) {
             if (__builtin_expect(wy != NULL, 1)) {
                 /* no branch on what the word is (see ascii_hit) */
                 const unsigned f = wy->flags;
                 const uint32_t keep = f == 0, was = wy->pending;
                 tally[f]++;
-                wy->pending = was + keep;
-                if (was == 0 && keep)
+                wy->pending = was + keep; /* never reaches UINT32_MAX: see FUSED_FLUSH */
+                if (__builtin_expect((was == 0) & keep, 0))
                     dirty_mark(&c->dirty, (uint32_t)(wy - &ascii[0].way[0]) / 2);
-                else if (__builtin_expect(wy->pending == UINT32_MAX, 0)) {
-                    tt_status st = way_flush(wy, x->table);
-                    if (st) {
-                        c->fill_status = st;
-                        x->failed = 1;
-                        break;
-                    }
-                }
                 continue;
             }
             if (c->fill_status) {
@@ -1005,12 +1057,24 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
             size_t k = fused_window(&tk, s, p, &w, low, &x);
             if (x.failed)
                 break;
-            if (k)
+            if (k) {
+                if (__builtin_expect((c->unflushed += k) >= c->flush_every, 0)) {
+                    tt_status fs = flush_pending(c, table);
+                    c->unflushed = 0;
+                    if (fs) {
+                        c->fill_status = fs;
+                        x.failed = 1;
+                        break;
+                    }
+                }
                 continue;
+            }
         }
         tt_token tok;
         if (!tti_tokenizer_walk(&tk, &tok))
             break;
+        c->unflushed++; /* fused_token checks its own counts, but the windows' hits
+                           of the same way must stay under FUSED_FLUSH in all */
         fused_token(&x, 0, tok.off, tok.len, tok.kind, tok.sentence_start);
         if (x.failed)
             break;
@@ -1210,6 +1274,11 @@ tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks,
         }
     }
     return TT_OK;
+}
+
+void tti_counter_set_flush_every(tt_counter *c, uint64_t tokens)
+{
+    c->flush_every = tokens;
 }
 
 tt_status tti_counter_flush(tt_counter *c, tt_termtable *table)

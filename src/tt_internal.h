@@ -98,6 +98,10 @@ struct tt_doc_stats;
 tt_status tti_counter_count_held(struct tt_counter *c, const struct tt_blocks *blocks,
                                  struct tt_termtable *table, struct tt_doc_stats *stats);
 tt_status tti_counter_flush(struct tt_counter *c, struct tt_termtable *table);
+/* How many tokens the counter takes between flushes of its held hits into
+ * the table it counts into (count.c, FUSED_FLUSH); tests set a small number
+ * to exercise the flush. */
+void tti_counter_set_flush_every(struct tt_counter *c, uint64_t tokens);
 
 /* A text compiled into the library by tools/embed.c (stop-word lists,
  * lexicons); each generated table ends with a { NULL, NULL } entry. */

@@ -374,6 +374,10 @@ static void zipfish_text(tt_buf *b, size_t n, size_t vocab, uint64_t seed)
 #undef NEXT
 }
 
+/* The library's internal hook (src/tt_internal.h): how many tokens the
+ * counter takes between flushes of the hits it holds. */
+void tti_counter_set_flush_every(tt_counter *c, uint64_t tokens);
+
 static int fail_allocs; /* allocations left before the test allocator fails */
 static void *failing_malloc(size_t n) { return fail_allocs-- > 0 ? malloc(n) : NULL; }
 static void *failing_realloc(void *p, size_t n) { return fail_allocs-- > 0 ? realloc(p, n) : NULL; }
@@ -412,6 +416,24 @@ static void test_pending_hits(void **state)
         tt_termtable_free(got);
         tt_termtable_free(ref);
     }
+
+    /* Held hits flushed to the table part-way through a text, as the fused
+     * path does every FUSED_FLUSH tokens (src/count.c), here every few
+     * windows and every window: nothing counted twice or lost. */
+    for (int every = 0; every < 2; every++) {
+        tti_counter_set_flush_every(c, every ? 1 : 200);
+        tt_termtable *ref = tt_termtable_new(), *got = tt_termtable_new();
+        uint64_t stopwords = 0, short_words = 0;
+        slow_path(one.data, one.len, stop, 1, ref, &stopwords, &short_words);
+        tt_doc_stats st;
+        memset(&st, 0, sizeof st);
+        assert_int_equal(tt_counter_count_text(c, one.data, one.len, got, &st), TT_OK);
+        assert_same_table(got, ref);
+        assert_int_equal(st.terms_kept, tt_termtable_total(ref));
+        tt_termtable_free(got);
+        tt_termtable_free(ref);
+    }
+    tti_counter_set_flush_every(c, (uint64_t)1 << 31);
 
     /* A count that runs out of memory part-way, then the second text again. */
     tt_termtable *failed = tt_termtable_new();
