@@ -786,6 +786,10 @@ typedef struct fused_state {
     int keep_numbers;
     int failed; /* c->fill_status holds why; later tokens are not counted */
     uint64_t words, sentences, numbers, kept, stopwords, shorts, overlong;
+    /* fused_window's hits by CACHE_* flags: [0] kept, [CACHE_STOP],
+     * [CACHE_SHORT], [CACHE_EMPTY]; added to kept, stopwords and shorts at
+     * the end */
+    uint64_t tally[8];
 } fused_state;
 
 /* One token, single terms: what count_block's loop does for it. */
@@ -911,9 +915,7 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     const uint64_t skip = x->keep_numbers ? 0 : number_ends;
     tt_counter *const c = x->c;
     ascii_set *const ascii = c->ascii;
-    /* hits by CACHE_* flags: [0] kept, [CACHE_STOP], [CACHE_SHORT], [CACHE_EMPTY] */
-    uint64_t tally[8] = { 0 };
-    uint64_t sentences = 0;
+    uint64_t *const tally = x->tally;
     size_t from = 0, a = 0, e = 0, prev_a = 0;
     int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
     /* all ones while a sentence start is pending from before the window:
@@ -932,7 +934,7 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
                 window_terminals(t, s, p, gap, !first, (unsigned)prev_a, (unsigned)from,
                                  &at_start, &suffix);
             }
-            sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
+            x->sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
             at_start = 0;
             suffix = 0;
             pending_start = 0;
@@ -1001,10 +1003,6 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         if (x->failed)
             break;
     }
-    x->sentences += sentences;
-    x->kept += tally[0];
-    x->stopwords += tally[CACHE_STOP];
-    x->shorts += tally[CACHE_SHORT];
     t->pos = p + e;
     t->prev_off = p + a;
     t->prev_end = p + e;
@@ -1087,9 +1085,9 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
     st->words_read += x.words;
     st->sentences += x.sentences;
     st->numbers += x.numbers;
-    st->terms_kept += x.kept;
-    st->stopwords += x.stopwords;
-    st->short_words += x.shorts;
+    st->terms_kept += x.kept + x.tally[0];
+    st->stopwords += x.stopwords + x.tally[CACHE_STOP];
+    st->short_words += x.shorts + x.tally[CACHE_SHORT];
     st->overlong += x.overlong + tk.overlong;
     return s_;
 }
