@@ -136,11 +136,15 @@ typedef struct resolved {
     cache_entry *entry; /* the general cache's entry now holding the token, or NULL */
 } resolved;
 
-/* Hits of an evicted way or entry wait in a small ring before they are
- * added to the table: the term's slot is prefetched when they enter and
- * read when the ring is full, EVICT_RING evictions later, so the table's
- * cache miss overlaps the counting in between. */
-#define EVICT_RING 8
+/* Hits of an evicted way or entry wait in a batch before they are added
+ * to the table, EVICT_BATCH at a time, in three passes: the terms' slots
+ * are fetched (prefetched) all at once, then the terms' bytes of the slots
+ * that hold them (which the add compares), then the adds run on what has
+ * arrived. The table's cache misses, two per term, so overlap each other
+ * instead of coming one after another; evictions come in bursts (a new
+ * document's words), which a ring that prefetched a few evictions ahead
+ * could not cover. */
+#define EVICT_BATCH 64
 typedef struct evicted {
     char term[CACHE_RAW];
     uint64_t hash;
@@ -171,8 +175,8 @@ struct tt_counter {
     dirty_list dirty;   /* ASCII sets with pending hits (maybe) */
     dirty_list gdirty;  /* general cache entries with pending hits (maybe) */
     tt_status fill_status; /* a failure to add evicted hits, for count_block */
-    evicted ring[EVICT_RING]; /* evicted hits waiting (ring_n from ring_head) */
-    size_t ring_head, ring_n;
+    evicted evict[EVICT_BATCH]; /* evicted hits waiting, evict_n of them */
+    size_t evict_n;
     resolved general;   /* the last answer of resolve_general */
     uint64_t unflushed;   /* tokens the fused path took since the last flush */
     uint64_t flush_every; /* FUSED_FLUSH (tests set less) */
@@ -205,26 +209,46 @@ static inline void dirty_mark(dirty_list *d, uint32_t id)
     }
 }
 
-/* Puts count hits of a term (len <= CACHE_RAW) on the ring of evicted hits,
- * adding the oldest to table when the ring is full. */
-static tt_status evict_hits(tt_counter *c, tt_termtable *table, const char *term, size_t len,
-                            uint64_t hash, uint32_t count)
+/* Adds the waiting evicted hits to table (none with table NULL: they are
+ * dropped), and empties the batch. */
+static tt_status evict_drain(tt_counter *c, tt_termtable *table)
 {
-    if (c->ring_n == EVICT_RING) {
-        const evicted *old = &c->ring[c->ring_head];
-        tt_status s = tti_termtable_add_hashed(table, old->term, old->len, old->hash, old->count);
-        c->ring_head = (c->ring_head + 1) % EVICT_RING;
-        c->ring_n--;
+    size_t n = c->evict_n;
+    c->evict_n = 0;
+    if (!table || !n)
+        return TT_OK;
+    size_t mask = table->cap - 1;
+    for (size_t i = 0; i < n; i++)
+        __builtin_prefetch(&table->slots[c->evict[i].hash & mask]);
+    for (size_t i = 0; i < n; i++) {
+        const tti_slot *sl = &table->slots[c->evict[i].hash & mask];
+        if (sl->term && sl->hash == c->evict[i].hash)
+            __builtin_prefetch(sl->term);
+    }
+    for (size_t i = 0; i < n; i++) {
+        const evicted *v = &c->evict[i];
+        tt_status s = tti_termtable_add_hashed(table, v->term, v->len, v->hash, v->count);
         if (s)
             return s;
     }
-    evicted *v = &c->ring[(c->ring_head + c->ring_n) % EVICT_RING];
+    return TT_OK;
+}
+
+/* Puts count hits of a term (len <= CACHE_RAW) in the batch of evicted
+ * hits, adding the batch to table when it is full. */
+static tt_status evict_hits(tt_counter *c, tt_termtable *table, const char *term, size_t len,
+                            uint64_t hash, uint32_t count)
+{
+    if (c->evict_n == EVICT_BATCH) {
+        tt_status s = evict_drain(c, table);
+        if (s)
+            return s;
+    }
+    evicted *v = &c->evict[c->evict_n++];
     memcpy(v->term, term, len);
     v->len = (uint8_t)len;
     v->hash = hash;
     v->count = count;
-    c->ring_n++;
-    __builtin_prefetch(&table->slots[hash & (table->cap - 1)]);
     return TT_OK;
 }
 
@@ -567,12 +591,7 @@ static tt_status way_flush(ascii_way *w, tt_termtable *table)
  * lists; on failure (or with table NULL) drops the hits left. */
 static tt_status flush_pending(tt_counter *c, tt_termtable *table)
 {
-    tt_status s = TT_OK;
-    for (; c->ring_n; c->ring_n--, c->ring_head = (c->ring_head + 1) % EVICT_RING) {
-        const evicted *v = &c->ring[c->ring_head];
-        if (!s && table)
-            s = tti_termtable_add_hashed(table, v->term, v->len, v->hash, v->count);
-    }
+    tt_status s = evict_drain(c, table);
     for (size_t i = 0; i < c->dirty.n; i++) {
         c->dirty.on[c->dirty.id[i]] = 0;
         ascii_set *set = &c->ascii[c->dirty.id[i]];
