@@ -477,41 +477,59 @@ static const abbrev company_suffix[] = { AB("inc"), AB("corp"), AB("co"), AB("lt
                                          AB("nv"), AB("n.v"), AB("ag"), AB("etc"), AB("bros"),
                                          AB("assn") };
 #undef AB
-#define ABBREV_MAX 6 /* the longest entry */
+#define ABBREV_MAX TTI_ABBREV_MAX /* the longest entry */
+_Static_assert(ABBREV_MAX <= 8, "an abbreviation's key is one word");
 
-/* A first filter before the lists are walked: per length, a bit for each
- * letter some entry of that length starts with. Made once per process. */
-static uint32_t abbrev_first[ABBREV_MAX + 1];
+/* The lists as one small hash set of keys: a word of up to eight bytes
+ * read into a uint64_t, every byte ORed with 0x20. That lowercases ASCII
+ * letters and leaves '.' as it is, and no other byte a token can hold
+ * turns into a letter or '.', so equal keys mean the same word in either
+ * case. Open addressing, 128 slots for the 63 entries (a multiply-shift of
+ * the key), value 1 for never_end and 2 for company_suffix. Made once per
+ * process. */
+#define ABBREV_SLOTS 128
+static uint64_t abbrev_keys[ABBREV_SLOTS];
+static unsigned char abbrev_kind[ABBREV_SLOTS];
 static pthread_once_t abbrev_once = PTHREAD_ONCE_INIT;
 
-static void abbrev_first_init(void)
+static uint64_t abbrev_key(const unsigned char *w, size_t n)
 {
-    for (size_t i = 0; i < sizeof never_end / sizeof *never_end; i++)
-        abbrev_first[never_end[i].n] |= 1u << (never_end[i].s[0] - 'a');
-    for (size_t i = 0; i < sizeof company_suffix / sizeof *company_suffix; i++)
-        abbrev_first[company_suffix[i].n] |= 1u << (company_suffix[i].s[0] - 'a');
+    uint64_t k = tti_load_upto8((const char *)w, n);
+    return k | (0x2020202020202020ULL >> (8 * (8 - n)));
 }
 
-/* Whether some entry has n letters and starts with w[0] (either case). */
-static int maybe_abbrev(const unsigned char *w, size_t n)
+static size_t abbrev_slot(uint64_t k)
 {
-    pthread_once(&abbrev_once, abbrev_first_init);
-    unsigned first = (unsigned)(w[0] | 32u) - 'a';
-    return first < 26 && ((abbrev_first[n] >> first) & 1u);
+    return (size_t)((k * 0x9E3779B97F4A7C15ULL) >> 57);
 }
 
-static int in_list(const unsigned char *w, size_t n, const abbrev *list, size_t count)
+static void abbrev_add(const abbrev *list, size_t count, unsigned char kind)
 {
-    unsigned char first = (unsigned char)(w[0] | (w[0] >= 'A' && w[0] <= 'Z' ? 32 : 0));
     for (size_t i = 0; i < count; i++) {
-        if (list[i].n != n || (unsigned char)list[i].s[0] != first)
-            continue;
-        size_t k = 1;
-        while (k < n && (w[k] | (w[k] >= 'A' && w[k] <= 'Z' ? 32 : 0)) == (unsigned char)list[i].s[k])
-            k++;
-        if (k == n)
-            return 1;
+        uint64_t k = abbrev_key((const unsigned char *)list[i].s, list[i].n);
+        size_t j = abbrev_slot(k);
+        while (abbrev_kind[j])
+            j = (j + 1) % ABBREV_SLOTS;
+        abbrev_keys[j] = k;
+        abbrev_kind[j] = kind;
     }
+}
+
+static void abbrev_init(void)
+{
+    abbrev_add(never_end, sizeof never_end / sizeof *never_end, 1);
+    abbrev_add(company_suffix, sizeof company_suffix / sizeof *company_suffix, 2);
+}
+
+/* 1: w (n letters, 1..ABBREV_MAX) is in never_end; 2: in company_suffix;
+ * 0: neither. */
+static unsigned abbrev_lookup(const unsigned char *w, size_t n)
+{
+    pthread_once(&abbrev_once, abbrev_init);
+    uint64_t k = abbrev_key(w, n);
+    for (size_t j = abbrev_slot(k); abbrev_kind[j]; j = (j + 1) % ABBREV_SLOTS)
+        if (abbrev_keys[j] == k)
+            return abbrev_kind[j];
     return 0;
 }
 
@@ -529,13 +547,10 @@ void tti_terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_t t
         }
         if (n == 1 && w[0] >= 'A' && w[0] <= 'Z')
             return;
-        if (!maybe_abbrev(w, n)) {
-            t->at_sentence_start = 1;
+        unsigned kind = abbrev_lookup(w, n);
+        if (kind == 1)
             return;
-        }
-        if (in_list(w, n, never_end, sizeof never_end / sizeof *never_end))
-            return;
-        if (in_list(w, n, company_suffix, sizeof company_suffix / sizeof *company_suffix))
+        if (kind == 2)
             t->pending_suffix = 1;
     }
     t->at_sentence_start = 1;

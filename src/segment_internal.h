@@ -24,6 +24,10 @@
  * last token (t->prev_off, t->prev_end). src/segment.c. */
 void tti_terminal(tt_tokenizer *t, const unsigned char *s, size_t from, size_t to);
 
+/* The longest abbreviation whose period tti_terminal may take for no
+ * sentence end ("approx"). */
+#define TTI_ABBREV_MAX 6
+
 /* The next token by the walk (the chunk masks' fast path, then the full
  * rules), for where a window cannot decide: as tt_tokenizer_next. */
 int tti_tokenizer_walk(tt_tokenizer *t, tt_token *tok);
@@ -279,7 +283,13 @@ static inline void window_terminals(tt_tokenizer *t, const unsigned char *s, siz
     }
     for (; gap; gap &= gap - 1) {
         size_t at = p + (size_t)__builtin_ctzll(gap);
-        tti_terminal(t, s, at, at + 1);
+        if (s[at] == '.' && t->prev_end == at && at - t->prev_off <= TTI_ABBREV_MAX) {
+            tti_terminal(t, s, at, at + 1); /* maybe an abbreviation's period */
+        } else {
+            /* what tti_terminal decides without a list: a sentence end */
+            t->pending_suffix = 0;
+            t->at_sentence_start = 1;
+        }
     }
     *at_start = t->at_sentence_start;
     *suffix = t->pending_suffix;
