@@ -6,7 +6,9 @@
  * glue the last word of one block to the first word of the next. Blocks
  * never hold a '\n' themselves (their text is whitespace-normalized), which
  * is what makes the separator safe; tt_blocks_add refuses text that breaks
- * that invariant.
+ * that invariant. The plain-text extractor builds its paragraphs in place
+ * (tti_blocks_close: the text appended to b->text since the block's start
+ * becomes a block), with no copy and no check: it never writes a '\n'.
  *
  * Cost: appending a block is amortised O(len) (both the text buffer and the
  * item array double). The text buffer's cap is twice the largest document,
@@ -53,13 +55,11 @@ void tt_blocks_reset(tt_blocks *b)
     b->repaired = 0;
 }
 
-tt_status tt_blocks_add(tt_blocks *b, tt_block_kind kind, const char *text,
-                        size_t len, long long src_off)
+/* The item for a block of len bytes at off of b->text, whose '\n'
+ * separator is still to be written. */
+static tt_status add_item(tt_blocks *b, tt_block_kind kind, size_t off, size_t len,
+                          long long src_off)
 {
-    if (len == 0)
-        return TT_OK; /* empty blocks are never stored */
-    if (memchr(text, '\n', len))
-        return TT_EINVAL;
     if (b->n == b->cap) {
         size_t cap = b->cap ? b->cap * 2 : 64;
         tt_block *items = tt_reallocarray(b->items, cap, sizeof *items);
@@ -68,21 +68,48 @@ tt_status tt_blocks_add(tt_blocks *b, tt_block_kind kind, const char *text,
         b->items = items;
         b->cap = cap;
     }
-    size_t off = b->text.len;
-    tt_status st = tt_buf_grow(&b->text, len + 1);
-    if (st)
-        return st;
-    memcpy(b->text.data + off, text, len);
-    b->text.data[off + len] = '\n';
-    b->text.len = off + len + 1;
-    b->text.data[b->text.len] = '\0';
-
     tt_block *blk = &b->items[b->n++];
     blk->kind = kind;
     blk->off = off;
     blk->len = len;
     blk->src_off = src_off;
     return TT_OK;
+}
+
+tt_status tt_blocks_add(tt_blocks *b, tt_block_kind kind, const char *text,
+                        size_t len, long long src_off)
+{
+    if (len == 0)
+        return TT_OK; /* empty blocks are never stored */
+    if (memchr(text, '\n', len))
+        return TT_EINVAL;
+    size_t off = b->text.len;
+    tt_status st = tt_buf_grow(&b->text, len + 1);
+    if (st)
+        return st;
+    st = add_item(b, kind, off, len, src_off);
+    if (st)
+        return st;
+    memcpy(b->text.data + off, text, len);
+    b->text.data[off + len] = '\n';
+    b->text.len = off + len + 1;
+    b->text.data[b->text.len] = '\0';
+    return TT_OK;
+}
+
+tt_status tti_blocks_close(tt_blocks *b, int kind, size_t off, long long src_off)
+{
+    size_t len = b->text.len - off;
+    if (len == 0)
+        return TT_OK;
+    tt_status st = tt_buf_putc(&b->text, '\n');
+    if (!st)
+        st = add_item(b, (tt_block_kind)kind, off, len, src_off);
+    if (st)
+        b->text.len = off; /* the open block is dropped */
+    if (b->text.data)
+        b->text.data[b->text.len] = '\0';
+    return st;
 }
 
 const char *tt_block_kind_name(tt_block_kind kind)

@@ -20,9 +20,9 @@
  * LF, CRLF and a lone CR each count as one line break. A paragraph's src_off
  * is the offset of its first non-space byte plus src_base.
  *
- * The current paragraph is built in a scratch buffer and then appended to
- * the block list (one memcpy per paragraph), which keeps tt_blocks' layout
- * private to blocks.c. */
+ * The current paragraph is built in place at the end of the blocks' text
+ * buffer and closed into a block by tti_blocks_close (blocks.c keeps the
+ * layout): no second copy, and no search for a '\n' the runs cannot hold. */
 #include <stdint.h>
 #if defined(__SSE2__)
 #include <emmintrin.h>
@@ -54,11 +54,9 @@ static int is_letter(uint32_t cp)
     return cat >= UTF8PROC_CATEGORY_LU && cat <= UTF8PROC_CATEGORY_LO;
 }
 
-/* The paragraph so far ends in "<letter>-". */
-static int ends_in_letter_hyphen(const tt_buf *para)
+/* The paragraph so far (n bytes at d) ends in "<letter>-". */
+static int ends_in_letter_hyphen(const unsigned char *d, size_t n)
 {
-    const unsigned char *d = (const unsigned char *)para->data;
-    size_t n = para->len;
     if (n < 2 || d[n - 1] != '-')
         return 0;
     size_t end = n - 1, p = end - 1; /* p: last byte of the letter */
@@ -160,8 +158,10 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
                           tt_blocks *out, const char *name, tt_error *err)
 {
     const unsigned char *s = (const unsigned char *)text;
-    tt_buf para;
-    tt_buf_init(&para, 0);
+    /* The paragraph is built in place, after the blocks before it, in the
+     * blocks' text buffer (tti_blocks_close): para_at is where it starts. */
+    tt_buf *const buf = &out->text;
+    size_t para_at;
     tt_status st = TT_OK;
     long long para_src = -1;
     size_t breaks = 0; /* line breaks in the current white-space run */
@@ -169,6 +169,7 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
     size_t i = 0;
 
     tt_blocks_reset(out);
+    para_at = buf->len;
     while (i < len) {
         unsigned c = byte_class[s[i]];
         if (c == C_SPACE) {
@@ -197,18 +198,20 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
         }
 
         /* A word: first settle the white space before it. */
-        if (breaks >= 2 && para.len) {
-            st = tt_blocks_add(out, TT_BLOCK_PARAGRAPH, para.data, para.len, para_src);
+        if (breaks >= 2 && buf->len > para_at) {
+            st = tti_blocks_close(out, TT_BLOCK_PARAGRAPH, para_at, para_src);
             if (st)
                 goto fail;
-            tt_buf_reset(&para);
+            para_at = buf->len;
         }
-        if (para.len == 0) {
+        if (buf->len == para_at) {
             para_src = src_base + (long long)i;
         } else if (space &&
-                   !(breaks == 1 && ends_in_letter_hyphen(&para) &&
+                   !(breaks == 1 &&
+                     ends_in_letter_hyphen((const unsigned char *)buf->data + para_at,
+                                           buf->len - para_at) &&
                      starts_with_letter(s + i, len - i))) {
-            st = tt_buf_putc(&para, ' ');
+            st = tt_buf_putc(buf, ' ');
             if (st)
                 goto fail;
         }
@@ -216,7 +219,8 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
         breaks = 0;
 
         /* The run: ordinary bytes, plus single spaces between words, which
-         * are already normalized and so copied as they are. */
+         * are already normalized and so copied as they are (never a LF or
+         * CR: the blocks' separator stays safe). */
         size_t j = i + 1;
         while (j < len) {
             j = skip_ordinary(s, len, j);
@@ -233,19 +237,17 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
             else
                 break;
         }
-        st = tt_buf_append(&para, s + i, j - i);
+        st = tt_buf_append(buf, (const char *)s + i, j - i);
         if (st)
             goto fail;
         i = j;
     }
-    st = tt_blocks_add(out, TT_BLOCK_PARAGRAPH, para.data, para.len, para_src);
+    st = tti_blocks_close(out, TT_BLOCK_PARAGRAPH, para_at, para_src);
     if (st)
         goto fail;
-    tt_buf_release(&para);
     return TT_OK;
 
 fail:
-    tt_buf_release(&para);
     tt_blocks_reset(out);
     if (st == TT_ENOMEM)
         return tt_error_set(err, st, name, src_base + (long long)i,

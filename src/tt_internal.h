@@ -86,6 +86,13 @@ extern int tti_use_simd;
 #endif
 int tti_simd_level(void);
 
+/* A block built in place (src/blocks.c): the text appended to b->text
+ * from off on (tt_buf calls; never a '\n') becomes a block of kind, unless
+ * it is empty. On failure the text from off on is dropped. */
+struct tt_blocks;
+tt_status tti_blocks_close(struct tt_blocks *b, int kind, size_t off, long long src_off);
+/* (kind is a tt_block_kind, termtide/extract.h) */
+
 /* Counting many documents into one table (a running total): like
  * tt_counter_count, but hits may stay held in the counter's cache between
  * calls, so the table is up to date only after tti_counter_flush. Every
