@@ -1064,6 +1064,12 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
             else
 #endif
                 window_portable(&w, w64);
+            /* the text's last bytes hold no letter, digit, '_' or byte
+             * >= 0x80 (the padding is NUL): no token is left to take, and
+             * the terminals there can only start a sentence no token
+             * follows in this text */
+            if (w64 == pad && !(w.alpha | w.digit | w.under | w.high))
+                break;
             unsigned char low[80];
 #if TTI_SIMD_WIDE
             if (isa >= FUSED_AVX2)
