@@ -8,7 +8,9 @@
  * recent token became. On the benchmark's filing-like text about 3% of
  * tokens miss it, and the loop costs some 60 instructions a token besides
  * the tokenizer (callgrind); a kept token's count waits in the cache (see
- * "Pending counts").
+ * "Pending counts"). Single terms without stemming, the default and most of
+ * the work, take a fused path that tokenizes and counts in one loop (see
+ * "the fused path" below).
  *
  * N-grams: a window of the last ngram_max kept tokens of the current
  * sentence (each with its final term form and whether it may start or end an
@@ -80,7 +82,20 @@
  * term's bytes are not read in the loop, only the cache's line, which the
  * lookup has just read. Between calls every pending is 0, so a counter can
  * count into another table next. On an error the pending hits are dropped
- * with the call's table, which the caller discards. */
+ * with the call's table, which the caller discards.
+ *
+ * Held hits and the figures: on the fused path (single terms, no
+ * stemming; "the fused path" below) a hit in the ASCII cache only adds one
+ * to its way's `pending`, whatever the word is, and the set goes on one of
+ * two dirty lists at the first hit: `dirty` for kept terms, `sdirty` for
+ * stop-words, short words and empty terms. The call's figures (tokens,
+ * numbers and sentences come from the windows' masks) are closed at its
+ * end (close_figures): the other words' held hits, from sdirty and from
+ * ways evicted during the call (`held`), are its stop-words and short
+ * words, and its kept terms are the tokens the ASCII cache answered
+ * (`call_ascii`) less those. So the loop does one add per token and no
+ * branch on the kind of word. The kept terms' hits stay held past the call
+ * (a running total), as above. */
 #define ASCII_BITS 14 /* 16384 sets of two ways: 1 MB (6% faster than 512 KB over the
                          * benchmark's 97,000 terms, and as fast as 2 MB) */
 #define ASCII_RAW 16
@@ -172,13 +187,19 @@ struct tt_counter {
     ascii_set *ascii;   /* 1 << ASCII_BITS sets, 64-byte aligned; NULL with stemming */
     void *ascii_mem;    /* from tti_alloc_large: read at random, on a huge page */
     int ascii_mapped;
-    dirty_list dirty;   /* ASCII sets with pending hits (maybe) */
+    dirty_list dirty;   /* ASCII sets with pending hits of kept terms (maybe) */
+    dirty_list sdirty;  /* ASCII sets with pending hits of other words (maybe) */
     dirty_list gdirty;  /* general cache entries with pending hits (maybe) */
     tt_status fill_status; /* a failure to add evicted hits, for count_block */
     evicted evict[EVICT_BATCH]; /* evicted hits waiting, evict_n of them */
     size_t evict_n;
     resolved general;   /* the last answer of resolve_general */
     uint64_t unflushed;   /* tokens the fused path took since the last flush */
+    /* This call's figures for the ASCII cache's hits (see "Held hits and
+     * the figures"): tokens it answered, and the hits of stop-words, short
+     * words and empty terms no longer held in a way (by CACHE_* flag) */
+    uint64_t call_ascii;
+    uint64_t held[8];
     uint64_t flush_every; /* FUSED_FLUSH (tests set less) */
 };
 
@@ -292,7 +313,8 @@ tt_counter *tt_counter_new(const tt_count_options *opt)
             return NULL;
         }
         c->ascii = (ascii_set *)(((uintptr_t)c->ascii_mem + 63) & ~(uintptr_t)63);
-        if (dirty_init(&c->dirty, (size_t)1 << ASCII_BITS)) {
+        if (dirty_init(&c->dirty, (size_t)1 << ASCII_BITS) ||
+            dirty_init(&c->sdirty, (size_t)1 << ASCII_BITS)) {
             tt_counter_free(c);
             return NULL;
         }
@@ -326,6 +348,8 @@ void tt_counter_free(tt_counter *c)
     tti_free_large(c->ascii_mem, ((size_t)1 << ASCII_BITS) + 1, sizeof *c->ascii, c->ascii_mapped);
     tt_free(c->dirty.id);
     tt_free(c->dirty.on);
+    tt_free(c->sdirty.id);
+    tt_free(c->sdirty.on);
     tt_free(c->gdirty.id);
     tt_free(c->gdirty.on);
     tt_free(c);
@@ -587,8 +611,43 @@ static tt_status way_flush(ascii_way *w, tt_termtable *table)
                                     w->hash, n);
 }
 
-/* Brings table up to date with every pending hit and empties the dirty
- * lists; on failure (or with table NULL) drops the hits left. */
+/* Moves the held hits of stop-words, short words and empty terms from the
+ * ways to c->held and empties their dirty list. */
+static void hold_others(tt_counter *c)
+{
+    for (size_t i = 0; i < c->sdirty.n; i++) {
+        c->sdirty.on[c->sdirty.id[i]] = 0;
+        ascii_set *set = &c->ascii[c->sdirty.id[i]];
+        for (int j = 0; j < 2; j++) {
+            ascii_way *w = &set->way[j];
+            if (w->flags) {
+                c->held[w->flags] += w->pending;
+                w->pending = 0;
+            }
+        }
+    }
+    c->sdirty.n = 0;
+}
+
+/* Closes a call's figures (see "Held hits and the figures"): the ASCII
+ * cache's hits of other words go to st, and its kept terms are the tokens
+ * it answered less those. */
+static void close_figures(tt_counter *c, tt_doc_stats *st)
+{
+    if (!c->ascii)
+        return;
+    hold_others(c);
+    uint64_t others = c->held[CACHE_STOP] + c->held[CACHE_SHORT] + c->held[CACHE_EMPTY];
+    st->stopwords += c->held[CACHE_STOP];
+    st->short_words += c->held[CACHE_SHORT];
+    st->terms_kept += c->call_ascii - others;
+    memset(c->held, 0, sizeof c->held);
+    c->call_ascii = 0;
+}
+
+/* Brings table up to date with every pending hit of a kept term and
+ * empties the dirty lists; on failure (or with table NULL) drops the hits
+ * left, and the call's figures too. */
 static tt_status flush_pending(tt_counter *c, tt_termtable *table)
 {
     tt_status s = evict_drain(c, table);
@@ -596,10 +655,13 @@ static tt_status flush_pending(tt_counter *c, tt_termtable *table)
         c->dirty.on[c->dirty.id[i]] = 0;
         ascii_set *set = &c->ascii[c->dirty.id[i]];
         for (int j = 0; j < 2; j++) {
+            ascii_way *w = &set->way[j];
+            if (w->flags)
+                continue; /* held for the figures (sdirty) */
             if (!s && table)
-                s = way_flush(&set->way[j], table);
+                s = way_flush(w, table);
             else
-                set->way[j].pending = 0;
+                w->pending = 0;
         }
     }
     c->dirty.n = 0;
@@ -612,6 +674,11 @@ static tt_status flush_pending(tt_counter *c, tt_termtable *table)
             e->pending = 0;
     }
     c->gdirty.n = 0;
+    if (!table && c->ascii) {
+        hold_others(c);
+        memset(c->held, 0, sizeof c->held);
+        c->call_ascii = 0;
+    }
     return s;
 }
 
@@ -636,7 +703,9 @@ static ascii_way *ascii_fill(tt_counter *c, ascii_set *set, const uint64_t k[2],
     uint64_t h;
     unsigned f = classify(c, (const char *)low + a, b - a, &h);
     const ascii_way *old = &set->way[1];
-    if (old->pending) {
+    if (old->pending && old->flags) {
+        c->held[old->flags] += old->pending; /* figures only */
+    } else if (old->pending) {
         tt_status s = evict_hits(c, table, (const char *)old->key + old->term_off, old->term_len,
                                  old->hash, old->pending);
         if (s) {
@@ -683,29 +752,16 @@ static inline ascii_way *ascii_find(tt_counter *c, ascii_set *set, const uint64_
     return ascii_find_rest(c, set, k, len, table);
 }
 
-/* A hit of way w, single terms: a kept term is a pending hit (see the
- * cache's comment), a stop-word or short word only a figure. Done without a
- * branch on which it is, since in prose the two alternate as no predictor
- * can follow (flags holds at most one of CACHE_STOP, CACHE_SHORT and
- * CACHE_EMPTY). Fails only when a count reaching UINT32_MAX cannot be
- * added to table. */
-__attribute__((always_inline)) static inline tt_status ascii_hit(tt_counter *c, ascii_way *w,
-                                                                 tt_termtable *table,
-                                                                 uint64_t *kept,
-                                                                 uint64_t *stopwords,
-                                                                 uint64_t *shorts)
+/* A hit of way w, single terms (the fused path): one more held hit, of a
+ * kept term or not (see "Held hits and the figures"); the set goes on the
+ * dirty list of its kind at the first. No branch on what the word is, and
+ * no check for overflow (FUSED_FLUSH). */
+__attribute__((always_inline)) static inline void ascii_hit(tt_counter *c, ascii_way *w)
 {
-    const unsigned f = w->flags;
-    const uint32_t keep = f == 0, was = w->pending;
-    w->pending = was + keep;
-    *kept += keep;
-    *stopwords += f & CACHE_STOP;
-    *shorts += (f & CACHE_SHORT) >> 1;
-    if (was == 0 && keep)
-        dirty_mark(&c->dirty, (uint32_t)(w - &c->ascii[0].way[0]) / 2);
-    else if (__builtin_expect(w->pending == UINT32_MAX, 0))
-        return way_flush(w, table);
-    return TT_OK;
+    const uint32_t was = w->pending;
+    w->pending = was + 1;
+    if (__builtin_expect(was == 0, 0))
+        dirty_mark(w->flags ? &c->sdirty : &c->dirty, (uint32_t)(w - &c->ascii[0].way[0]) / 2);
 }
 
 /* Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
@@ -804,11 +860,9 @@ typedef struct fused_state {
     size_t len;
     int keep_numbers;
     int failed; /* c->fill_status holds why; later tokens are not counted */
-    uint64_t words, sentences, numbers, kept, stopwords, shorts, overlong;
-    /* fused_window's hits by CACHE_* flags: [0] kept, [CACHE_STOP],
-     * [CACHE_SHORT], [CACHE_EMPTY]; added to kept, stopwords and shorts at
-     * the end */
-    uint64_t tally[8];
+    uint64_t words, sentences, numbers, overlong;
+    /* the tokens the general path took, and what it made of them */
+    uint64_t general, kept, stopwords, shorts;
 } fused_state;
 
 /* One token, single terms: what count_block's loop does for it. */
@@ -832,11 +886,7 @@ __attribute__((always_inline)) static inline void fused_token(void *ctx, size_t 
     if (len - 1 < ASCII_RAW && ascii_lower_key(x->text + off, len, x->len - off, k)) {
         ascii_way *w = ascii_find(c, &c->ascii[ascii_slot(k, len)], k, len, x->table);
         if (w) {
-            tt_status s = ascii_hit(c, w, x->table, &x->kept, &x->stopwords, &x->shorts);
-            if (s) {
-                c->fill_status = s;
-                x->failed = 1;
-            }
+            ascii_hit(c, w);
             return;
         }
         if (c->fill_status) {
@@ -844,6 +894,7 @@ __attribute__((always_inline)) static inline void fused_token(void *ctx, size_t 
             return;
         }
     }
+    x->general++;
     switch (fused_general(c, x->table, x->text + off, len, kind)) {
     case GEN_KEPT: x->kept++; break;
     case GEN_STOP: x->stopwords++; break;
@@ -934,7 +985,6 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     const uint64_t skip = x->keep_numbers ? 0 : number_ends;
     tt_counter *const c = x->c;
     ascii_set *const ascii = c->ascii;
-    uint64_t *const tally = x->tally;
     size_t from = 0, a = 0, e = 0, prev_a = 0;
     int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
     /* all ones while a sentence start is pending from before the window:
@@ -996,13 +1046,7 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         }
         if (ascii_key_ok) {
             if (__builtin_expect(wy != NULL, 1)) {
-                /* no branch on what the word is (see ascii_hit) */
-                const unsigned f = wy->flags;
-                const uint32_t keep = f == 0, was = wy->pending;
-                tally[f]++;
-                wy->pending = was + keep; /* never reaches UINT32_MAX: see FUSED_FLUSH */
-                if (__builtin_expect((was == 0) & keep, 0))
-                    dirty_mark(&c->dirty, (uint32_t)(wy - &ascii[0].way[0]) / 2);
+                ascii_hit(c, wy);
                 continue;
             }
             if (c->fill_status) {
@@ -1010,11 +1054,12 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
                 break;
             }
         }
+        x->general++;
         switch (fused_general(c, x->table, (const char *)s + p + a, len,
                               (end_bit & number_ends) ? TT_TOKEN_NUMBER : TT_TOKEN_WORD)) {
-        case GEN_KEPT: tally[0]++; break;
-        case GEN_STOP: tally[CACHE_STOP]++; break;
-        case GEN_SHORT: tally[CACHE_SHORT]++; break;
+        case GEN_KEPT: x->kept++; break;
+        case GEN_STOP: x->stopwords++; break;
+        case GEN_SHORT: x->shorts++; break;
         case GEN_OVERLONG: x->overlong++; break;
         case GEN_FAILED: x->failed = 1; break;
         default: break;
@@ -1083,6 +1128,7 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
             if (k) {
                 if (__builtin_expect((c->unflushed += k) >= c->flush_every, 0)) {
                     tt_status fs = flush_pending(c, table);
+                    hold_others(c);
                     c->unflushed = 0;
                     if (fs) {
                         c->fill_status = fs;
@@ -1110,9 +1156,12 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
     st->words_read += x.words;
     st->sentences += x.sentences;
     st->numbers += x.numbers;
-    st->terms_kept += x.kept + x.tally[0];
-    st->stopwords += x.stopwords + x.tally[CACHE_STOP];
-    st->short_words += x.shorts + x.tally[CACHE_SHORT];
+    st->terms_kept += x.kept;
+    st->stopwords += x.stopwords;
+    st->short_words += x.shorts;
+    /* the rest of the tokens the ASCII cache answered; their figures are
+     * closed with the call (close_figures) */
+    c->call_ascii += x.words - (x.keep_numbers ? 0 : x.numbers) - x.general;
     st->overlong += x.overlong + tk.overlong;
     return s_;
 }
@@ -1200,11 +1249,8 @@ static tt_status count_block(tt_counter *c, const char *text, size_t len,
             if (b->sets[ti])
                 w = ascii_find(c, b->sets[ti], b->keys[ti], tok->len, table);
             if (w) {
-                if (unigram_only) {
-                    if ((s = ascii_hit(c, w, table, &kept, &stopwords, &shorts)))
-                        goto out;
-                    continue;
-                }
+                /* (single terms with the ASCII cache take the fused path: here
+                 * the way only names the term, and holds no hits) */
                 term = (const char *)w->key + w->term_off;
                 tlen = w->term_len;
                 h = w->hash;
@@ -1296,6 +1342,7 @@ tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks,
             return s;
         }
     }
+    close_figures(c, stats);
     return TT_OK;
 }
 
@@ -1320,6 +1367,8 @@ tt_status tt_counter_count_text(tt_counter *c, const char *text, size_t len,
                                 tt_termtable *table, tt_doc_stats *stats)
 {
     tt_status s = count_block(c, text, len, table, stats);
+    if (!s)
+        close_figures(c, stats);
     tt_status f = flush_pending(c, s ? NULL : table);
     return s ? s : f;
 }

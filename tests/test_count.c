@@ -461,6 +461,68 @@ static void test_pending_hits(void **state)
     tt_termtable_free(stop);
 }
 
+/* A running total (the counter holds kept terms' hits from one document to
+ * the next, as count --total does): each document's own figures (kept
+ * terms, stop-words, short words) must be the slow path's for that
+ * document, though the hits of the stop-words and short words stay in the
+ * cache until the document's call ends, and the table after the flush the
+ * slow path's for all of them. Five documents of a skewed vocabulary, in
+ * blocks of a few hundred tokens, with stop-words and a minimum length. */
+tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks, tt_termtable *table,
+                                 tt_doc_stats *stats);
+tt_status tti_counter_flush(tt_counter *c, tt_termtable *table);
+
+static void test_running_total_figures(void **state)
+{
+    (void)state;
+    tt_termtable *stop = stop_set();
+    tt_count_options o;
+    tt_count_options_init(&o);
+    o.stopwords = stop;
+    o.min_length = 3;
+    tt_counter *c = tt_counter_new(&o);
+    assert_non_null(c);
+    tt_termtable *total = tt_termtable_new(), *ref_total = tt_termtable_new();
+    for (int doc = 0; doc < 5; doc++) {
+        tt_buf text;
+        tt_buf_init(&text, 0);
+        zipfish_text(&text, 20000 + 7000 * (size_t)doc, 30000, 10 + (uint64_t)doc);
+        for (size_t i = 0; i < text.len; i++)
+            if (text.data[i] == '\n')
+                text.data[i] = ' ';
+        tt_termtable *ref = tt_termtable_new();
+        uint64_t stopwords = 0, short_words = 0;
+        slow_path(text.data, text.len, stop, 3, ref, &stopwords, &short_words);
+        slow_path(text.data, text.len, stop, 3, ref_total, &stopwords, &short_words);
+        stopwords /= 2;
+        short_words /= 2;
+        tt_blocks b;
+        tt_blocks_init(&b);
+        for (size_t at = 0; at < text.len;) {
+            size_t n = text.len - at < 1500 ? text.len - at : 1500;
+            while (at + n < text.len && text.data[at + n] != ' ')
+                n++; /* blocks end between words */
+            assert_int_equal(tt_blocks_add(&b, TT_BLOCK_PARAGRAPH, text.data + at, n, 0), TT_OK);
+            at += n;
+        }
+        tt_doc_stats st;
+        memset(&st, 0, sizeof st);
+        assert_int_equal(tti_counter_count_held(c, &b, total, &st), TT_OK);
+        assert_int_equal(st.stopwords, stopwords);
+        assert_int_equal(st.short_words, short_words);
+        assert_int_equal(st.terms_kept, tt_termtable_total(ref));
+        tt_blocks_release(&b);
+        tt_termtable_free(ref);
+        tt_buf_release(&text);
+    }
+    assert_int_equal(tti_counter_flush(c, total), TT_OK);
+    tt_test_same_table(total, ref_total, "running total");
+    tt_termtable_free(total);
+    tt_termtable_free(ref_total);
+    tt_counter_free(c);
+    tt_termtable_free(stop);
+}
+
 static void test_bad_options(void **state)
 {
     (void)state;
@@ -483,6 +545,7 @@ int main(void)
         cmocka_unit_test(test_classes),
         cmocka_unit_test(test_caches_match_slow_path),
         cmocka_unit_test(test_pending_hits),
+        cmocka_unit_test(test_running_total_figures),
         cmocka_unit_test(test_bad_options),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
