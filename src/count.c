@@ -1166,14 +1166,26 @@ fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt
     return s_;
 }
 
+/* fused_block over the n blocks of items, whose text is base + off. */
+__attribute__((always_inline)) static inline tt_status
+fused_blocks(tt_counter *c, const char *base, const tt_block *items, size_t n,
+             tt_termtable *table, tt_doc_stats *st, int isa)
+{
+    for (size_t i = 0; i < n; i++) {
+        tt_status s = fused_block(c, base + items[i].off, items[i].len, table, st, isa);
+        if (s)
+            return s;
+    }
+    return TT_OK;
+}
+
 #if TTI_SIMD_WIDE
 __attribute__((target("avx2,bmi,bmi2"))) static tt_status
-fused_block_avx2(tt_counter *c, const char *text, size_t len, tt_termtable *table,
-                 tt_doc_stats *st)
+fused_blocks_avx2(tt_counter *c, const char *base, const tt_block *items, size_t n,
+                  tt_termtable *table, tt_doc_stats *st)
 {
-    return fused_block(c, text, len, table, st, FUSED_AVX2);
+    return fused_blocks(c, base, items, n, table, st, FUSED_AVX2);
 }
-#endif
 
 /* Whether the CPU has BMI1 and BMI2 (every AVX2 CPU made so far has). */
 static int fused_bmi(void)
@@ -1183,26 +1195,37 @@ static int fused_bmi(void)
         has = __builtin_cpu_supports("bmi") && __builtin_cpu_supports("bmi2");
     return has;
 }
+#endif
 
-static tt_status fused_block_any(tt_counter *c, const char *text, size_t len, tt_termtable *table,
-                                 tt_doc_stats *st)
+/* The fused path over a call's blocks, for the widest SIMD the CPU has (and
+ * tt_simd allows); one dispatch a call, not a block. */
+static tt_status fused_any(tt_counter *c, const char *base, const tt_block *items, size_t n,
+                           tt_termtable *table, tt_doc_stats *st)
 {
 #if TTI_SIMD_WIDE
     if (tti_use_simd && tti_simd_level() >= TT_SIMD_AVX2 && fused_bmi())
-        return fused_block_avx2(c, text, len, table, st);
+        return fused_blocks_avx2(c, base, items, n, table, st);
 #endif
 #if defined(__SSE2__)
     if (tti_use_simd)
-        return fused_block(c, text, len, table, st, FUSED_SSE2);
+        return fused_blocks(c, base, items, n, table, st, FUSED_SSE2);
 #endif
-    return fused_block(c, text, len, table, st, FUSED_PORTABLE);
+    return fused_blocks(c, base, items, n, table, st, FUSED_PORTABLE);
+}
+
+/* Whether c counts on the fused path. */
+static int fused_applies(const tt_counter *c)
+{
+    return c->opt.ngram_max == 1 && c->ascii;
 }
 
 static tt_status count_block(tt_counter *c, const char *text, size_t len,
                              tt_termtable *table, tt_doc_stats *st)
 {
-    if (c->opt.ngram_max == 1 && c->ascii)
-        return fused_block_any(c, text, len, table, st);
+    if (fused_applies(c)) {
+        const tt_block one = { TT_BLOCK_PARAGRAPH, 0, len, -1 };
+        return fused_any(c, text, &one, 1, table, st);
+    }
     tt_tokenizer tk;
     tt_status s;
     const int unigram_only = c->opt.ngram_max == 1;
@@ -1334,6 +1357,15 @@ out:
 tt_status tti_counter_count_held(tt_counter *c, const tt_blocks *blocks,
                                  tt_termtable *table, tt_doc_stats *stats)
 {
+    if (fused_applies(c)) {
+        tt_status s = fused_any(c, blocks->text.data, blocks->items, blocks->n, table, stats);
+        if (s) {
+            flush_pending(c, NULL);
+            return s;
+        }
+        close_figures(c, stats);
+        return TT_OK;
+    }
     for (size_t i = 0; i < blocks->n; i++) {
         const tt_block *b = &blocks->items[i];
         tt_status s = count_block(c, blocks->text.data + b->off, b->len, table, stats);
