@@ -987,17 +987,19 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     ascii_set *const ascii = c->ascii;
     size_t from = 0, a = 0, e = 0, prev_a = 0;
     int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
-    /* all ones while a sentence start is pending from before the window:
-     * the first token then takes the rare branch as a gap would */
-    uint64_t pending_start = at_start ? ~(uint64_t)0 : 0;
-    while (ends) {
+    /* The rare branch is due at the first token after the next terminal:
+     * when its start bit is above the terminal's, or above 0 while a
+     * sentence start is pending from before the window (no terminal left:
+     * all ones, above every start bit). */
+    uint64_t due = at_start ? 0 : terminals ? terminals & -terminals : ~(uint64_t)0;
+    do {
         const uint64_t start_bit = starts & -starts, end_bit = ends & -ends;
         a = (size_t)__builtin_ctzll(starts);
         e = (size_t)__builtin_ctzll(ends);
         starts ^= start_bit;
         ends ^= end_bit;
-        const uint64_t gap = terminals & (start_bit - 1);
-        if (__builtin_expect((gap | pending_start) != 0, 0)) {
+        if (__builtin_expect(start_bit > due, 0)) {
+            const uint64_t gap = terminals & (start_bit - 1);
             if (gap) {
                 terminals ^= gap;
                 window_terminals(t, s, p, gap, !first, (unsigned)prev_a, (unsigned)from,
@@ -1006,7 +1008,7 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
             x->sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
             at_start = 0;
             suffix = 0;
-            pending_start = 0;
+            due = terminals ? terminals & -terminals : ~(uint64_t)0;
         }
         first = 0;
         prev_a = a;
@@ -1066,7 +1068,7 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
         }
         if (x->failed)
             break;
-    }
+    } while (ends);
     t->pos = p + e;
     t->prev_off = p + a;
     t->prev_end = p + e;
