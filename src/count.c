@@ -492,6 +492,12 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
 #define ASCII_SSE2 TT_COUNT_SSE2
 
 /* For len bytes (0..16): which bytes of the two key words to keep. */
+/* ASCII_RAW bytes of 0xFF then ASCII_RAW of 0: the 16 bytes from
+ * key_slide + ASCII_RAW - len keep the first len (0..16). */
+static const unsigned char key_slide[2 * ASCII_RAW] = {
+    0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF,
+};
+
 static _Alignas(16) const uint64_t key_mask[ASCII_RAW + 1][2] = {
     { 0x0000000000000000ULL, 0x0000000000000000ULL },
     { 0x00000000000000ffULL, 0x0000000000000000ULL },
@@ -985,8 +991,9 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
     const uint64_t skip = x->keep_numbers ? 0 : number_ends;
     tt_counter *const c = x->c;
     ascii_set *const ascii = c->ascii;
-    size_t from = 0, a = 0, e = 0, prev_a = 0;
-    int at_start = t->at_sentence_start, suffix = t->pending_suffix, first = 1;
+    size_t a = 0, e = 0;
+    const uint64_t all_starts = starts, all_ends = ends;
+    int at_start = t->at_sentence_start, suffix = t->pending_suffix;
     /* The rare branch is due at the first token after the next terminal:
      * when its start bit is above the terminal's, or above 0 while a
      * sentence start is pending from before the window (no terminal left:
@@ -1002,7 +1009,12 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
             const uint64_t gap = terminals & (start_bit - 1);
             if (gap) {
                 terminals ^= gap;
-                window_terminals(t, s, p, gap, !first, (unsigned)prev_a, (unsigned)from,
+                /* the token before this one, if the window has one */
+                const uint64_t before_s = all_starts & (start_bit - 1);
+                const uint64_t before_e = all_ends & (end_bit - 1);
+                window_terminals(t, s, p, gap, before_e != 0,
+                                 before_e ? 63u - (unsigned)__builtin_clzll(before_s) : 0,
+                                 before_e ? 63u - (unsigned)__builtin_clzll(before_e) : 0,
                                  &at_start, &suffix);
             }
             x->sentences += (unsigned)window_suffix_rule(s + p + a, at_start, suffix);
@@ -1010,9 +1022,6 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
             suffix = 0;
             due = terminals ? terminals & -terminals : ~(uint64_t)0;
         }
-        first = 0;
-        prev_a = a;
-        from = e;
         if (end_bit & skip)
             continue;
         const size_t len = e - a;
@@ -1023,7 +1032,8 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
             /* the key stays in a register: folded, and compared with way
              * 0's in one go */
             __m128i v = _mm_loadu_si128((const __m128i *)(const void *)(low + a));
-            v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
+            v = _mm_and_si128(
+                v, _mm_loadu_si128((const __m128i *)(const void *)(key_slide + ASCII_RAW - len)));
             if (!_mm_movemask_epi8(v)) {
                 ascii_key_ok = 1;
                 ascii_set *set = &ascii[ascii_slot_of(
