@@ -87,6 +87,11 @@ typedef struct window {
     uint64_t term;       /* . ! ? */
     /* the bytes of the three-byte characters below (all 0 without high) */
     uint64_t e2, b80, b82, dash_quote, apos, euro;
+    /* and of the two-byte letters U+00C0-U+027F (all 0 without high): lead
+     * bytes C3-C9, continuation bytes 80-BF, C3, and 97 or B7 (the second
+     * bytes of U+00D7 and U+00F7, the two code points there that are no
+     * letter) */
+    uint64_t lead2, cont, c3, x97;
 } window;
 
 static inline void window_portable(window *w, const unsigned char *c)
@@ -109,6 +114,10 @@ static inline void window_portable(window *w, const unsigned char *c)
         w->dash_quote |= b == 0x93 || b == 0x94 || b == 0x9C || b == 0x9D ? bit : 0;
         w->apos |= b == 0x98 || b == 0x99 ? bit : 0;
         w->euro |= b == 0xAC ? bit : 0;
+        w->lead2 |= b >= 0xC3 && b <= 0xC9 ? bit : 0;
+        w->cont |= b >= 0x80 && b <= 0xBF ? bit : 0;
+        w->c3 |= b == 0xC3 ? bit : 0;
+        w->x97 |= b == 0x97 || b == 0xB7 ? bit : 0;
     }
 }
 
@@ -145,6 +154,10 @@ static inline void window_sse2(window *w, const unsigned char *c)
         w->dash_quote |= bits16(dq, k);
         w->apos |= bits16(_mm_or_si128(eq16(v, (char)0x98), eq16(v, (char)0x99)), k);
         w->euro |= bits16(eq16(v, (char)0xAC), k);
+        w->lead2 |= (uint64_t)in_range(v, 0xC3, 7) << (16 * k);
+        w->cont |= (uint64_t)in_range(v, 0x80, 64) << (16 * k);
+        w->c3 |= bits16(eq16(v, (char)0xC3), k);
+        w->x97 |= bits16(_mm_or_si128(eq16(v, (char)0x97), eq16(v, (char)0xB7)), k);
     }
 }
 #endif
@@ -183,6 +196,10 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
                            or32(eq32(v, (char)0x9C), eq32(v, (char)0x9D)))
 #define APOS(v) or32(eq32(v, (char)0x98), eq32(v, (char)0x99))
 #define EURO(v) eq32(v, (char)0xAC)
+#define LEAD2(v) in_range_v32(v, 0xC3, 7)
+#define CONT(v) in_range_v32(v, 0x80, 64)
+#define C3(v) eq32(v, (char)0xC3)
+#define X97(v) or32(eq32(v, (char)0x97), eq32(v, (char)0xB7))
     w->alpha = BOTH(ALPHA);
     w->digit = BOTH(DIGIT);
     w->under = BOTH(UNDER);
@@ -198,8 +215,13 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
         w->dash_quote = BOTH(DASH_QUOTE);
         w->apos = BOTH(APOS);
         w->euro = BOTH(EURO);
+        w->lead2 = BOTH(LEAD2);
+        w->cont = BOTH(CONT);
+        w->c3 = BOTH(C3);
+        w->x97 = BOTH(X97);
     } else {
         w->e2 = w->b80 = w->b82 = w->dash_quote = w->apos = w->euro = 0;
+        w->lead2 = w->cont = w->c3 = w->x97 = 0;
     }
 #undef ALPHA
 #undef DIGIT
@@ -215,6 +237,10 @@ __attribute__((target("avx2"))) static inline void window_avx2(window *w, const 
 #undef DASH_QUOTE
 #undef APOS
 #undef EURO
+#undef LEAD2
+#undef CONT
+#undef C3
+#undef X97
 }
 #undef BOTH
 #endif
@@ -230,7 +256,16 @@ typedef struct window_tokens_of {
 
 __attribute__((always_inline)) static inline window_tokens_of window_decide(const window *wp)
 {
-    const window w = *wp;
+    window w = *wp;
+    /* Two-byte letters (U+00C0-U+027F but U+00D7 and U+00F7, all
+     * Word_Break ALetter in WordBreakProperty.txt): both bytes count as
+     * letters, so that "Ibáñez" and "Château-Brume" stay in the window.
+     * (A lead in the last byte pairs with nothing: cont >> 1 has no bit 63,
+     * since the window does not see that byte's continuation.) */
+    const uint64_t pair = w.lead2 & (w.cont >> 1) & ~(w.c3 & (w.x97 >> 1));
+    const uint64_t latin = pair | pair << 1;
+    w.alpha |= latin;
+    w.high &= ~latin;
     const uint64_t word = w.alpha | w.digit | w.under;
     const uint64_t mid_letter = w.mid_letter, mid_num = w.mid_num;
     /* Three-byte characters the window knows (the first byte's bit): the

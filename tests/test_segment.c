@@ -390,6 +390,15 @@ static const rnd_char prose_alphabet[] = {
     { "\xE2\x80\xAF", 0, 0 },      /* U+202F narrow no-break space, ExtendNumLet */
     { "\xE2\x82\x93", 1, 0 },      /* U+2093 subscript x, Lm (the bytes of U+2013 but one) */
     { "\xE2\x80\xAC", 0, 0 },      /* U+202C pop directional formatting, Format */
+    /* two-byte letters and their neighbours, which the windows take as
+     * letters (U+00C0-U+027F but U+00D7 and U+00F7, ALetter) */
+    { "\xC4\x8D", 1, 0 },           /* U+010D c caron, Ll */
+    { "\xC3\x80", 1, 0 },           /* U+00C0 A grave, Lu */
+    { "\xC9\xBF", 1, 0 },           /* U+027F, Ll: the range's last */
+    { "\xC3\x97", 0, 0 },           /* U+00D7 multiplication sign, Other */
+    { "\xC3\xB7", 0, 0 },           /* U+00F7 division sign, Other */
+    { "\xCA\x80", 1, 0 },           /* U+0280, Ll: just past the range */
+    { "\xC2\xAA", 1, 0 },           /* U+00AA feminine ordinal, Lo: just before */
 };
 
 static int is_hyphen(const char *s, size_t len)
