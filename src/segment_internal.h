@@ -75,8 +75,9 @@ __attribute__((target("avx2"))) static inline __m256i in_range_v32(__m256i v, in
  * before it joins (the walk, too, starts fresh at a boundary). It stops at
  * the first byte the masks cannot decide, and the walk takes over from the
  * end of the last token taken: a byte >= 0x80 other than those of the
- * filings' dashes, quotes and euro sign (see window_take_into: a non-ASCII
- * letter, mark or terminal), a '-' after a run that does not join, a Mid* or
+ * filings' dashes, quotes and euro sign and of the two-byte letters
+ * U+00C0-U+027F (see window_decide: any other non-ASCII letter, a mark or
+ * a terminal), a '-' after a run that does not join, a Mid* or
  * quote after a run followed by a byte >= 0x80, a run starting with '_'
  * (which may hold no letter or digit), and the window's last byte, whose
  * right neighbour it does not see. */
