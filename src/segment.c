@@ -490,6 +490,9 @@ _Static_assert(ABBREV_MAX <= 8, "an abbreviation's key is one word");
 #define ABBREV_SLOTS 128
 static uint64_t abbrev_keys[ABBREV_SLOTS];
 static unsigned char abbrev_kind[ABBREV_SLOTS];
+/* A first filter: per length, a bit for each letter some entry of that
+ * length starts with (most words before a period pass no entry's). */
+static uint32_t abbrev_first[ABBREV_MAX + 1];
 static pthread_once_t abbrev_once = PTHREAD_ONCE_INIT;
 
 static uint64_t abbrev_key(const unsigned char *w, size_t n)
@@ -512,20 +515,28 @@ static void abbrev_add(const abbrev *list, size_t count, unsigned char kind)
             j = (j + 1) % ABBREV_SLOTS;
         abbrev_keys[j] = k;
         abbrev_kind[j] = kind;
+        abbrev_first[list[i].n] |= 1u << (list[i].s[0] - 'a');
     }
 }
+
+static int abbrev_ready; /* set (release) once the set is made */
 
 static void abbrev_init(void)
 {
     abbrev_add(never_end, sizeof never_end / sizeof *never_end, 1);
     abbrev_add(company_suffix, sizeof company_suffix / sizeof *company_suffix, 2);
+    __atomic_store_n(&abbrev_ready, 1, __ATOMIC_RELEASE);
 }
 
 /* 1: w (n letters, 1..ABBREV_MAX) is in never_end; 2: in company_suffix;
  * 0: neither. */
 static unsigned abbrev_lookup(const unsigned char *w, size_t n)
 {
-    pthread_once(&abbrev_once, abbrev_init);
+    if (!__atomic_load_n(&abbrev_ready, __ATOMIC_ACQUIRE))
+        pthread_once(&abbrev_once, abbrev_init);
+    unsigned first = (unsigned)(w[0] | 32u) - 'a';
+    if (first >= 26 || !((abbrev_first[n] >> first) & 1u))
+        return 0;
     uint64_t k = abbrev_key(w, n);
     for (size_t j = abbrev_slot(k); abbrev_kind[j]; j = (j + 1) % ABBREV_SLOTS)
         if (abbrev_keys[j] == k)
