@@ -808,14 +808,21 @@ static inline size_t batch_ready(const tt_counter *c, tt_tokenizer *tk, const ch
 /* ---- the fused path ------------------------------------------------------
  *
  * Single terms without stemming (the default, and most of the work) skip
- * the batches: the tokenizer's window (segment_internal.h) hands each token
- * straight to fused_token, which makes its ASCII key and looks it up while
- * the window's masks are still in registers. No token is written to memory
- * and read back, and no second loop runs over the batch. The set's line is
- * not prefetched: the lookups of successive tokens do not depend on each
- * other, so the CPU overlaps them by itself. Tokens no window decides come
- * from the walk (tti_tokenizer_walk) and go through the same function, so
- * every token is counted as count_block's batches count it. */
+ * the batches. fused_window decides a window's tokens from its masks
+ * (window_decide, segment_internal.h) and takes each one where it stands:
+ * its key is a 16-byte load from the window lowercased once, kept in a
+ * register, folded for the set and compared with way 0 in one go, and a hit
+ * adds one to the way's held count ("Held hits and the figures"). No token
+ * is written to memory and read back, and no second loop runs over a
+ * batch. The tallies that need no cache come from the masks: tokens and
+ * numbers by popcount, sentence starts in a rare branch taken where a
+ * token's start passes the next terminal. The set's line is not
+ * prefetched: the lookups of successive tokens do not depend on each other,
+ * so the CPU overlaps them by itself (a prefetch pass measured slower).
+ * Tokens no window decides come from the walk (tti_tokenizer_walk) and go
+ * through fused_token, so every token is counted as count_block's batches
+ * count it; test_random_against_reference and test_running_total_figures
+ * hold the two paths to that. */
 
 /* What the general path made of a token, for the statistics. */
 enum { GEN_KEPT, GEN_STOP, GEN_SHORT, GEN_EMPTY, GEN_OVERLONG, GEN_FAILED };
@@ -947,26 +954,18 @@ static inline void window_lower(unsigned char low[80], const unsigned char *c)
     memset(low + 64, 0, 16);
 }
 
+#if !TT_COUNT_SSE2
 /* The key of the token of len (1..ASCII_RAW) bytes at low: 0 when it is
- * not ASCII. */
+ * not ASCII (the SSE2 path does this in a register, in fused_window). */
 static inline int low_key(const unsigned char *low, size_t len, uint64_t k[2])
 {
-#if TT_COUNT_SSE2
-    __m128i v = _mm_loadu_si128((const __m128i *)(const void *)low);
-    v = _mm_and_si128(v, _mm_load_si128((const __m128i *)(const void *)key_mask[len]));
-    if (_mm_movemask_epi8(v))
-        return 0;
-    k[0] = (uint64_t)_mm_cvtsi128_si64(v);
-    k[1] = (uint64_t)_mm_cvtsi128_si64(_mm_unpackhi_epi64(v, v));
-    return 1;
-#else
     uint64_t b[2];
     memcpy(b, low, sizeof b);
     k[0] = b[0] & key_mask[len][0];
     k[1] = b[1] & key_mask[len][1];
     return !((k[0] | k[1]) & HIGH_BITS);
-#endif
 }
+#endif
 
 /* The tokens of the window at tk->pos = p (masks w, bytes c, lowercased in
  * low), counted: what window_take_into and fused_token do, token for
@@ -1093,6 +1092,7 @@ __attribute__((always_inline)) static inline tt_status
 fused_block(tt_counter *c, const char *text, size_t len, tt_termtable *table, tt_doc_stats *st,
             int isa)
 {
+    (void)isa; /* only the portable masks without SSE2 */
     const unsigned char *s = (const unsigned char *)text;
     tt_tokenizer tk;
     tt_tokenizer_init(&tk, text, len);
