@@ -492,11 +492,13 @@ static tt_status resolve_general(tt_counter *c, const char *raw, size_t len,
 #define ASCII_SSE2 TT_COUNT_SSE2
 
 /* For len bytes (0..16): which bytes of the two key words to keep. */
+#if TT_COUNT_SSE2
 /* ASCII_RAW bytes of 0xFF then ASCII_RAW of 0: the 16 bytes from
  * key_slide + ASCII_RAW - len keep the first len (0..16). */
 static const unsigned char key_slide[2 * ASCII_RAW] = {
     0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF, 0xFF,
 };
+#endif
 
 static _Alignas(16) const uint64_t key_mask[ASCII_RAW + 1][2] = {
     { 0x0000000000000000ULL, 0x0000000000000000ULL },
