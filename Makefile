@@ -1,7 +1,8 @@
 # termtide — plain Makefile with pkg-config.
 #
 #   make                 library (build/libtermtide.a) and program (build/termtide)
-#   make check           the test suite, then again under ASan + UBSan
+#   make check           the test suite, then again under ASan + UBSan, then portable-test
+#   make portable-test   the SIMD stages' tests built with no SIMD code (build-portable)
 #   make test            the test suite once (normal build)
 #   make san-test        the test suite under AddressSanitizer + UBSan only
 #   make bench           the benchmark (bench/)
@@ -24,10 +25,16 @@ WARN    := -std=c11 -Wall -Wextra -Werror -Wshadow -Wstrict-prototypes -Wmissing
 CPPFLAGS_ALL := -D_POSIX_C_SOURCE=200809L -D_DEFAULT_SOURCE -DTT_VERSION=\"$(VERSION)\" -Iinclude -Isrc $(PKG_CFLAGS)
 
 # SAN=1 builds into build-san with AddressSanitizer + UndefinedBehaviorSanitizer.
+# PORTABLE=1 builds into build-portable with no SIMD code at all (__SSE2__
+# undefined, as on a CPU without it), for portable-test.
 ifeq ($(SAN),1)
 B       := build-san
 CFLAGS  := -O1 -g -fno-omit-frame-pointer -fsanitize=address,undefined -fno-sanitize-recover=all
 LDSAN   := -fsanitize=address,undefined
+else ifeq ($(PORTABLE),1)
+B       := build-portable
+CFLAGS  := -O2 -g -U__SSE2__
+LDSAN   :=
 else
 B       := build
 LDSAN   :=
@@ -44,7 +51,7 @@ TESTS   := $(TEST_SRC:tests/%.c=$(B)/tests/%)
 STOPWORDS := $(sort $(wildcard stopwords/*.txt))
 LEXICONS := $(sort $(wildcard lexicons/*.txt))
 
-.PHONY: all test check san-test bench install uninstall clean leakcheck lint format fuzz
+.PHONY: all test check san-test portable-test bench install uninstall clean leakcheck lint format fuzz
 all: $(B)/libtermtide.a $(B)/termtide
 
 $(B)/obj/%.o: src/%.c $(wildcard include/termtide/*.h src/*.h) | $(B)/obj/cli $(B)/obj/gen
@@ -89,10 +96,19 @@ test: all $(TESTS)
 san-test:
 	$(MAKE) SAN=1 test
 
+# The tests of the stages with SIMD paths (the tokenizer, the counter, the
+# decoder, the text extractor) on a build without any (PORTABLE=1).
+PORTABLE_TESTS := test_segment test_count test_decode test_extract
+portable-test:
+	$(MAKE) PORTABLE=1 $(PORTABLE_TESTS:%=build-portable/tests/%)
+	@for t in $(PORTABLE_TESTS); do ./build-portable/tests/$$t >/dev/null || exit 1; done; \
+	echo "portable-test: $(words $(PORTABLE_TESTS)) passed"
+
 # The closing line counts the test programs of both builds.
 check:
 	$(MAKE) test
 	ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 $(MAKE) SAN=1 test fuzz-replay
+	$(MAKE) portable-test
 	@read p1 f1 < build/test-counts; read p2 f2 < build-san/test-counts; \
 	echo "check: $$((p1 + p2)) passed, $$((f1 + f2)) failed"
 
@@ -122,7 +138,7 @@ uninstall:
 	rm -rf $(DESTDIR)$(PREFIX)/bin/termtide $(DESTDIR)$(PREFIX)/lib/libtermtide.a $(DESTDIR)$(PREFIX)/include/termtide $(DESTDIR)$(PREFIX)/share/man/man1/termtide.1 $(DESTDIR)$(PREFIX)/share/termtide
 
 clean:
-	rm -rf build build-san build-fuzz
+	rm -rf build build-san build-fuzz build-portable
 
 # ---- fuzzing (fuzz/README.md) ------------------------------------------------
 #   make fuzz       replays fuzz/corpus/<target>/ and fuzz/crashes/<target>-*
