@@ -547,6 +547,23 @@ static void run_tasks(int threads, size_t ntasks, void (*fn)(void *ctx, size_t t
     }
 }
 
+/* The entries of the sorted items, a part per task (of parts): writing them
+ * is mostly faulting in the array's pages, a few microseconds each in a
+ * virtual machine, which threads take in parallel. */
+#define ENTRIES_PARALLEL 20000
+typedef struct entries_job {
+    const sort_item *items;
+    tt_term_entry *e;
+    size_t n, parts;
+} entries_job;
+
+static void entries_part(void *ctx, size_t k)
+{
+    const entries_job *j = ctx;
+    size_t from = j->n * k / j->parts, to = j->n * (k + 1) / j->parts;
+    items_to_entries(j->items + from, to - from, j->e + from);
+}
+
 static void sort_part(void *ctx, size_t i)
 {
     union_part *p = &((union_job *)ctx)->parts[i];
@@ -695,7 +712,14 @@ tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t nt
     tt_term_entry *e = tt_reallocarray(NULL, u ? u : 1, sizeof *e);
     if (!e)
         goto done;
-    items_to_entries(radix_items(items, spare, u, 1, hist), u, e);
+    entries_job ej = { radix_items(items, spare, u, 1, hist), e, u, 1 };
+    if (threads > 1 && u >= ENTRIES_PARALLEL) {
+        /* the array's fresh pages are faulted in by every thread at once */
+        ej.parts = (size_t)threads < 64 ? (size_t)threads : 64;
+        run_tasks(threads, ej.parts, entries_part, &ej);
+    } else {
+        items_to_entries(ej.items, u, e);
+    }
     *out = e;
     *n = u;
     st = TT_OK;
