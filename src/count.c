@@ -880,6 +880,21 @@ typedef struct fused_state {
     uint64_t general, kept, stopwords, shorts;
 } fused_state;
 
+/* A token of the general path (r: what fused_general made of it) in the
+ * figures. */
+static inline void fused_tally(fused_state *x, int r)
+{
+    x->general++;
+    switch (r) {
+    case GEN_KEPT: x->kept++; break;
+    case GEN_STOP: x->stopwords++; break;
+    case GEN_SHORT: x->shorts++; break;
+    case GEN_OVERLONG: x->overlong++; break;
+    case GEN_FAILED: x->failed = 1; break;
+    default: break;
+    }
+}
+
 /* One token, single terms: what count_block's loop does for it. */
 __attribute__((always_inline)) static inline void fused_token(void *ctx, size_t n, size_t off,
                                                               size_t len, tt_token_kind kind,
@@ -909,15 +924,7 @@ __attribute__((always_inline)) static inline void fused_token(void *ctx, size_t 
             return;
         }
     }
-    x->general++;
-    switch (fused_general(c, x->table, x->text + off, len, kind)) {
-    case GEN_KEPT: x->kept++; break;
-    case GEN_STOP: x->stopwords++; break;
-    case GEN_SHORT: x->shorts++; break;
-    case GEN_OVERLONG: x->overlong++; break;
-    case GEN_FAILED: x->failed = 1; break;
-    default: break;
-    }
+    fused_tally(x, fused_general(c, x->table, x->text + off, len, kind));
 }
 
 enum { FUSED_PORTABLE, FUSED_SSE2, FUSED_AVX2 };
@@ -1067,24 +1074,12 @@ fused_window(tt_tokenizer *restrict t, const unsigned char *s, size_t p, const w
                 break;
             }
         }
-        x->general++;
-        switch (fused_general(c, x->table, (const char *)s + p + a, len,
-                              (end_bit & number_ends) ? TT_TOKEN_NUMBER : TT_TOKEN_WORD)) {
-        case GEN_KEPT: x->kept++; break;
-        case GEN_STOP: x->stopwords++; break;
-        case GEN_SHORT: x->shorts++; break;
-        case GEN_OVERLONG: x->overlong++; break;
-        case GEN_FAILED: x->failed = 1; break;
-        default: break;
-        }
+        fused_tally(x, fused_general(c, x->table, (const char *)s + p + a, len,
+                                     (end_bit & number_ends) ? TT_TOKEN_NUMBER : TT_TOKEN_WORD));
         if (x->failed)
             break;
     } while (ends);
-    t->pos = p + e;
-    t->prev_off = p + a;
-    t->prev_end = p + e;
-    t->at_sentence_start = 0;
-    t->pending_suffix = 0;
+    window_close(t, p, a, e);
     return n;
 }
 

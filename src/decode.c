@@ -183,6 +183,27 @@ typedef struct utf8_scan {
     size_t nul_at;        /* first NUL, or SIZE_MAX */
 } utf8_scan;
 
+/* At p[*i], a byte that is not plain ASCII: a NUL ends the scan (returns 0,
+ * with nul_at set); anything else is counted, a valid sequence or a
+ * maximal invalid subpart, and stepped over. */
+static inline int scan_at(const unsigned char *p, size_t n, size_t *i, utf8_scan *s)
+{
+    if (p[*i] == 0) {
+        s->nul_at = *i;
+        return 0;
+    }
+    size_t bad, len = utf8_seq(p + *i, n - *i, &bad);
+    if (len) {
+        s->multibyte++;
+        *i += len;
+    } else {
+        s->invalid++;
+        s->invalid_bytes += bad;
+        *i += bad;
+    }
+    return 1;
+}
+
 #if TTI_SIMD_WIDE
 /* scan_utf8 in one AVX2 function: the 32-byte steps and the sequences
  * between them in one loop, so that each of a text's non-ASCII characters
@@ -207,19 +228,8 @@ __attribute__((target("avx2"))) static void scan_utf8_avx2(const unsigned char *
             if (i >= n)
                 break;
         }
-        if (p[i] == 0) {
-            s->nul_at = i;
+        if (!scan_at(p, n, &i, s))
             return;
-        }
-        size_t bad, len = utf8_seq(p + i, n - i, &bad);
-        if (len) {
-            s->multibyte++;
-            i += len;
-        } else {
-            s->invalid++;
-            s->invalid_bytes += bad;
-            i += bad;
-        }
     }
 }
 #endif
@@ -239,19 +249,8 @@ static void scan_utf8(const unsigned char *p, size_t n, utf8_scan *s)
         i += ascii_run(p + i, n - i);
         if (i >= n)
             break;
-        if (p[i] == 0) {
-            s->nul_at = i;
+        if (!scan_at(p, n, &i, s))
             return;
-        }
-        size_t bad, len = utf8_seq(p + i, n - i, &bad);
-        if (len) {
-            s->multibyte++;
-            i += len;
-        } else {
-            s->invalid++;
-            s->invalid_bytes += bad;
-            i += bad;
-        }
     }
 }
 

@@ -343,6 +343,18 @@ static inline int window_suffix_rule(const unsigned char *first, int at_start, i
     return at_start;
 }
 
+/* The tokenizer after a window whose last token taken is [a, e) of the
+ * window at p: it goes on from the token's end, which it remembers, with no
+ * sentence start or suffix pending. */
+static inline void window_close(tt_tokenizer *t, size_t p, size_t a, size_t e)
+{
+    t->pos = p + e;
+    t->prev_off = p + a;
+    t->prev_end = p + e;
+    t->at_sentence_start = 0;
+    t->pending_suffix = 0;
+}
+
 /* What window_take_into hands each token to: ctx, the token's number in
  * this window (from 0), and the token (as tt_token's fields). */
 typedef void (*tti_window_emit)(void *ctx, size_t n, size_t off, size_t len, tt_token_kind kind,
@@ -386,13 +398,8 @@ window_take_into(tt_tokenizer *restrict t, const unsigned char *s, size_t p, siz
         at_start = 0;
         from = e;
     }
-    if (n) {
-        t->pos = p + e;
-        t->prev_off = p + a;
-        t->prev_end = p + e;
-        t->at_sentence_start = 0;
-        t->pending_suffix = 0;
-    }
+    if (n)
+        window_close(t, p, a, e);
     return n;
 }
 
