@@ -772,7 +772,10 @@ __attribute__((always_inline)) static inline void ascii_hit(tt_counter *c, ascii
         dirty_mark(w->flags ? &c->sdirty : &c->dirty, (uint32_t)(w - &c->ascii[0].way[0]) / 2);
 }
 
-/* Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
+/* (The batches below serve n-grams and stemming; single terms without
+ * stemming take the fused path further down.)
+ *
+ * Tokens are taken from the tokenizer BATCH at a time (tt_tokenizer_fill):
  * each one's cache key and set are worked out and the set's line is
  * prefetched. A batch is made ready one batch ahead of its counting, so
  * each set's line has a whole batch of counting to arrive in, the first

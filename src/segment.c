@@ -46,11 +46,11 @@
  * benchmark's) are ASCII runs followed by a space or a punctuation mark:
  * fast_token() takes them with the chunk masks alone. tt_tokenizer_fill()
  * goes further: where the text is ASCII (and the dashes, quotes and euro
- * sign of filings) it takes all the tokens of a 64-byte window from its
- * bit masks, with no walk (window_tokens(), below; a text's last bytes
- * are padded to a window): 99.6% of the benchmark's tokens, 7.5 a window,
- * about 45 instructions a token with the masks (callgrind), and hardly a
- * mispredicted branch. The tokenizer
+ * sign of filings, and the two-byte Latin letters) it takes all the tokens
+ * of a 64-byte window from its bit masks, with no walk (the windows are in
+ * segment_internal.h, shared with the counter's fused path; a text's last
+ * bytes are padded to a window): 99.6% of the benchmark's tokens, 7 a
+ * window, and hardly a mispredicted branch. The tokenizer
  * never allocates or copies, and never walks back: an over-long token (a
  * 50 MB run of letters, a base64 blob) is walked once, counted, and
  * dropped. */
