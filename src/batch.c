@@ -538,7 +538,7 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
     int started = 0;
     if (tids && r.partials)
         for (; started < threads; started++)
-            if (pthread_create(&tids[started], NULL, worker_main, &r) != 0)
+            if (tti_thread_start(&tids[started], worker_main, &r, (unsigned)started) != 0)
                 break;
     if (started == 0) {
         st = tt_error_set(err, TT_ENOMEM, NULL, -1, "could not start worker threads");

@@ -23,11 +23,11 @@
  * Invariants: slot.term == NULL ⇔ empty; distinct < cap * 7/10; total ==
  * sum of counts. Lookup and insert are O(1) expected; sort is O(n log n). */
 
+#include "termtide/parallel.h"
 #include "termtide/termtable.h"
 #include "tt_internal.h"
 #include "termtable_internal.h"
 
-#include <pthread.h>
 
 /* The slot and table layout are in termtable_internal.h. */
 typedef tti_slot slot;
@@ -507,46 +507,6 @@ typedef struct union_job {
     size_t *out_at, *out_n; /* per merge task: where it writes, how many */
 } union_job;
 
-typedef struct task_runner {
-    void (*fn)(void *ctx, size_t task);
-    void *ctx;
-    size_t ntasks, stride, first;
-} task_runner;
-
-static void *task_thread(void *arg)
-{
-    task_runner *r = arg;
-    for (size_t i = r->first; i < r->ntasks; i += r->stride)
-        r->fn(r->ctx, i);
-    return NULL;
-}
-
-/* Runs fn(ctx, 0..ntasks-1) on up to threads threads (this one included);
- * tasks of a thread that cannot start run on this one. */
-static void run_tasks(int threads, size_t ntasks, void (*fn)(void *ctx, size_t task), void *ctx)
-{
-    size_t t = threads < 1 ? 1 : (size_t)threads;
-    if (t > ntasks)
-        t = ntasks;
-    if (t > 64)
-        t = 64;
-    pthread_t tid[64];
-    task_runner r[64];
-    int started[64] = { 0 };
-    for (size_t k = 1; k < t; k++) {
-        r[k] = (task_runner){ fn, ctx, ntasks, t, k };
-        started[k] = pthread_create(&tid[k], NULL, task_thread, &r[k]) == 0;
-    }
-    r[0] = (task_runner){ fn, ctx, ntasks, t, 0 };
-    task_thread(&r[0]);
-    for (size_t k = 1; k < t; k++) {
-        if (started[k])
-            pthread_join(tid[k], NULL);
-        else
-            task_thread(&r[k]);
-    }
-}
-
 /* The entries of the sorted items, a part per task (of parts): writing them
  * is mostly faulting in the array's pages, a few microseconds each in a
  * virtual machine, which threads take in parallel. */
@@ -662,7 +622,7 @@ tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t nt
         parts[i].mem[1] = upper + at;
         at += tables[i]->distinct;
     }
-    run_tasks(threads, ntables, sort_part, &j);
+    tt_run_tasks(threads, ntables, sort_part, &j);
 
     size_t u;
     sort_item *items, *spare;
@@ -699,7 +659,7 @@ tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t nt
             for (size_t i = 0; i < ntables; i++)
                 out_at[k] += lower_bound(parts[i].sorted, parts[i].n, pivots[k - 1]);
         }
-        run_tasks(threads, ntasks, merge_range, &j);
+        tt_run_tasks(threads, ntasks, merge_range, &j);
         u = out_n[0];
         for (size_t k = 1; k < ntasks; k++) {
             memmove(upper + u, upper + out_at[k], out_n[k] * sizeof *upper);
@@ -716,7 +676,7 @@ tt_status tt_termtable_sorted_union(const tt_termtable *const *tables, size_t nt
     if (threads > 1 && u >= ENTRIES_PARALLEL) {
         /* the array's fresh pages are faulted in by every thread at once */
         ej.parts = (size_t)threads < 64 ? (size_t)threads : 64;
-        run_tasks(threads, ej.parts, entries_part, &ej);
+        tt_run_tasks(threads, ej.parts, entries_part, &ej);
     } else {
         items_to_entries(ej.items, u, e);
     }

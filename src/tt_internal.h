@@ -3,6 +3,7 @@
 #ifndef TT_INTERNAL_H
 #define TT_INTERNAL_H
 
+#include <pthread.h>
 #include <stddef.h>
 #include <stdint.h>
 #include <string.h>
@@ -141,5 +142,11 @@ static inline void tti_prefix_sums(size_t *c, size_t n)
  * with tti_free_large and the same count, size and mapped. */
 void *tti_alloc_large(size_t count, size_t size, int *mapped);
 void tti_free_large(void *p, size_t count, size_t size, int mapped);
+
+/* pthread_create(tid, NULL, fn, arg), but the thread starts on the k-th
+ * allowed CPU after the caller's (k = 0 the next; the caller's own comes
+ * last round the mask; parallel.c says why); once running it may go
+ * anywhere the caller could. 0, or -1 if no thread started. */
+int tti_thread_start(pthread_t *tid, void *(*fn)(void *), void *arg, unsigned k);
 
 #endif

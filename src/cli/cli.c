@@ -1,6 +1,5 @@
 /* termtide CLI — helpers shared by the subcommands. */
 #include <errno.h>
-#include <pthread.h>
 #include <stdarg.h>
 #include <stdlib.h>
 #include <string.h>
@@ -10,6 +9,7 @@
 #include "termtide/alloc.h"
 #include "termtide/filter.h"
 #include "termtide/index.h"
+#include "termtide/parallel.h"
 #include "termtide/sections.h"
 #include "termtide/sha256.h"
 #include "cli.h"
@@ -438,7 +438,8 @@ static tt_status format_rows(tt_table_writer *w, const char *doc, const tt_term_
     return st;
 }
 
-/* A later part of the rows, formatted in a thread of its own into buf. */
+/* A part of the rows: the first is written to the output (and flushed as
+ * it grows), each later one formatted in a thread of its own into buf. */
 typedef struct row_part {
     tt_table_writer w;
     tt_buf buf;
@@ -446,17 +447,16 @@ typedef struct row_part {
     const tt_term_entry *e;
     size_t from, to;
     uint64_t cum, total, per;
+    tt_outfile *flush_to;
+    tt_error *err;
     tt_status st;
-    pthread_t tid;
-    int started;
 } row_part;
 
-static void *format_part(void *arg)
+static void format_part(void *ctx, size_t k)
 {
-    row_part *p = arg;
-    p->st = format_rows(&p->w, p->doc, p->e, p->from, p->to, p->cum, p->total, p->per, NULL,
-                        NULL);
-    return NULL;
+    row_part *p = &((row_part *)ctx)[k];
+    p->st = format_rows(&p->w, p->doc, p->e, p->from, p->to, p->cum, p->total, p->per,
+                        p->flush_to, p->err);
 }
 
 /* Rows from 20,000 on are formatted in parallel (a share each), fewer are
@@ -480,24 +480,13 @@ tt_status cli_write_entry_rows(tt_table_writer *w, const char *doc, const tt_ter
     row_part part[MAX_ROW_PARTS];
     uint64_t cum = 0;
     size_t at = 0;
-    for (size_t k = 1; k < parts; k++) {
+    for (size_t k = 0; k < parts; k++) {
         row_part *p = &part[k];
         memset(p, 0, sizeof *p);
         size_t from = shown * k / parts, to = shown * (k + 1) / parts;
         for (; at < from; at++)
             cum += e[at].count;
-        /* Room for the part's rows at once (a little more than any row
-         * needs, or they grow it): a buffer grown by doubling in one
-         * thread, copied and faulted in page by page, holds up the other,
-         * whose page faults wait for the same address-space lock. */
-        tt_buf_init(&p->buf, 0);
-        size_t room = (to - from) * (strlen(doc) + 160);
-        for (size_t i = from; i < to; i++)
-            room += 2 * e[i].len;
-        (void)tt_buf_grow(&p->buf, room); /* on failure the rows grow it */
         p->w = *w;
-        p->w.out = &p->buf;
-        p->w.col = 0;
         p->doc = doc;
         p->e = e;
         p->from = from;
@@ -505,15 +494,28 @@ tt_status cli_write_entry_rows(tt_table_writer *w, const char *doc, const tt_ter
         p->cum = cum;
         p->total = total;
         p->per = per;
-        p->started = pthread_create(&p->tid, NULL, format_part, p) == 0;
+        tt_buf_init(&p->buf, 0);
+        if (k == 0) {
+            p->flush_to = flush_to;
+            p->err = err;
+            continue;
+        }
+        /* Room for the part's rows at once (a little more than any row
+         * needs, or they grow it): a buffer grown by doubling in one
+         * thread, copied and faulted in page by page, holds up the other,
+         * whose page faults wait for the same address-space lock. */
+        size_t room = (to - from) * (strlen(doc) + 160);
+        for (size_t i = from; i < to; i++)
+            room += 2 * e[i].len;
+        (void)tt_buf_grow(&p->buf, room); /* on failure the rows grow it */
+        p->w.out = &p->buf;
+        p->w.col = 0;
     }
-    tt_status st = format_rows(w, doc, e, 0, shown * 1 / parts, 0, total, per, flush_to, err);
+    tt_run_tasks((int)parts, parts, format_part, part);
+    *w = part[0].w;
+    tt_status st = part[0].st;
     for (size_t k = 1; k < parts; k++) {
         row_part *p = &part[k];
-        if (p->started)
-            pthread_join(p->tid, NULL);
-        else
-            format_part(p);
         if (!st)
             st = p->st;
         if (!st)
