@@ -38,7 +38,8 @@ typedef struct tt_batch_options {
     tt_read_options read;
     tt_count_options count;
     int threads;             /* 1 = run in the calling thread */
-    size_t window;           /* inputs in flight; 0 = 4 × threads */
+    size_t window;           /* inputs in flight; 0 = 4 × threads (32 × threads
+                              * with total and neither prepare nor analyse) */
     /* Called in input order, in the calling thread. Non-OK stops the batch
      * and is returned by tt_batch_run (e.g. a write error). */
     tt_status (*on_document)(void *ctx, const tt_doc_result *r);

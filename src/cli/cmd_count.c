@@ -239,8 +239,6 @@ static tt_status write_summary(const count_ctx *c, tt_buf *out, const char *doc,
 static tt_status prepare(void *ctx, const tt_doc_result *r, tt_buf *out)
 {
     const count_ctx *c = ctx;
-    if (c->total_only)
-        return TT_OK;
     switch (c->show) {
     case SHOW_TERMS: return write_terms(c, out, r->name, r->table, NULL, NULL);
     case SHOW_CLASSES: return write_classes(c, out, r->name, r->table);
@@ -374,7 +372,8 @@ int tt_cmd_count(int argc, char **argv)
     }
     cli_pipeline_hooks(&c.pipe);
     c.pipe.batch.on_document = on_document;
-    c.pipe.batch.prepare = prepare;
+    if (!c.total_only)
+        c.pipe.batch.prepare = prepare; /* with --total-only nothing per document */
     if (c.total_only)
         c.pipe.batch.total = c.all;
     if (c.total_only && c.show == SHOW_TERMS)
