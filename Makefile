@@ -14,15 +14,21 @@ CC      ?= cc
 PYTHON  ?= /usr/bin/python3
 VERSION := 0.1.0
 
-PKGS    := libxml-2.0 libutf8proc zlib libdeflate libpcre2-8 freetype2 sqlite3
-PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS))
-PKG_LIBS   := $(shell pkg-config --libs $(PKGS)) -lstemmer -lpthread -lm
-TEST_LIBS  := $(shell pkg-config --libs cmocka)
+# libxml2 is not linked: the library loads it (dlopen, by its SONAME, read
+# here from the library pkg-config names) when the first HTML document
+# comes, so a run over plain text does not pay 3 ms to load it and ICU.
+# The tests that parse the SVG they make link it themselves.
+PKGS    := libutf8proc zlib libdeflate libpcre2-8 freetype2 sqlite3
+PKG_CFLAGS := $(shell pkg-config --cflags libxml-2.0 $(PKGS))
+PKG_LIBS   := $(shell pkg-config --libs $(PKGS)) -lstemmer -lpthread -lm -ldl
+XML_LIBS   := $(shell pkg-config --libs libxml-2.0)
+XML_SONAME := $(or $(shell objdump -p $(shell pkg-config --variable=libdir libxml-2.0)/libxml2.so 2>/dev/null | awk '/SONAME/ {print $$2}'),libxml2.so.2)
+TEST_LIBS  := $(shell pkg-config --libs cmocka) $(XML_LIBS)
 
 OPT     ?= -O2
 CFLAGS  ?= $(OPT) -g
 WARN    := -std=c11 -Wall -Wextra -Werror -Wshadow -Wstrict-prototypes -Wmissing-prototypes -Wvla
-CPPFLAGS_ALL := -D_POSIX_C_SOURCE=200809L -D_DEFAULT_SOURCE -DTT_VERSION=\"$(VERSION)\" -Iinclude -Isrc $(PKG_CFLAGS)
+CPPFLAGS_ALL := -D_POSIX_C_SOURCE=200809L -D_DEFAULT_SOURCE -DTT_VERSION=\"$(VERSION)\" -DTT_LIBXML2_SONAME=\"$(XML_SONAME)\" -Iinclude -Isrc $(PKG_CFLAGS)
 
 # SAN=1 builds into build-san with AddressSanitizer + UndefinedBehaviorSanitizer.
 # PORTABLE=1 builds into build-portable with no SIMD code at all (__SSE2__
@@ -166,7 +172,7 @@ $(B)/fuzz $(FUZZ_B)/obj/gen:
 	mkdir -p $@
 
 $(B)/fuzz/replay_%: fuzz/fuzz_%.c fuzz/fuzz_common.h $(B)/libtermtide.a | $(B)/fuzz
-	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -DTT_FUZZ_STANDALONE $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) -o $@
+	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -DTT_FUZZ_STANDALONE $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) $(XML_LIBS) -o $@
 
 $(FUZZ_B)/obj/%.o: src/%.c $(wildcard include/termtide/*.h src/*.h) | $(FUZZ_B)/obj/gen
 	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer-no-link -c $< -o $@
@@ -177,7 +183,7 @@ $(FUZZ_B)/obj/gen/lexicons_data.o: $(LEX_GEN) | $(FUZZ_B)/obj/gen
 $(FUZZ_B)/libtermtide.a: $(FUZZ_LIB_OBJ)
 	rm -f $@ && ar rcs $@ $^
 $(FUZZ_B)/fuzz_%: fuzz/fuzz_%.c fuzz/fuzz_common.h $(FUZZ_B)/libtermtide.a
-	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer $< $(FUZZ_B)/libtermtide.a $(PKG_LIBS) -o $@
+	$(FUZZ_CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) $(FUZZ_FLAGS) -fsanitize=fuzzer $< $(FUZZ_B)/libtermtide.a $(PKG_LIBS) $(XML_LIBS) -o $@
 
 fuzz-run: $(FUZZ_TARGETS:%=$(FUZZ_B)/fuzz_%)
 	@for t in $(FUZZ_TARGETS); do \

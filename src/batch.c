@@ -19,7 +19,6 @@
 #include <pthread.h>
 #include <sys/stat.h>
 
-#include <libxml/parser.h>
 
 #include "termtide/batch.h"
 #include "termtide/index.h"
@@ -487,7 +486,6 @@ tt_status tt_batch_run(const tt_source_list *inputs, const tt_batch_options *opt
         return tt_index_replay(opt->index, inputs, opt, sum, err);
     memset(sum, 0, sizeof *sum);
     sum->inputs = inputs->n;
-    xmlInitParser(); /* once, before any thread parses */
     uint64_t bytes_total = opt->on_progress ? total_bytes(inputs) : 0;
     int threads = opt->threads < 1 ? 1 : opt->threads;
     if (threads > 256)

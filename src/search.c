@@ -99,7 +99,6 @@
 #include <strings.h>
 #include <sys/stat.h>
 
-#include <libxml/parser.h>
 #ifdef __SSE2__
 #include <emmintrin.h>
 #endif
@@ -1703,7 +1702,6 @@ tt_status tt_search_batch(const tt_source_list *inputs, const tt_search_batch_op
 {
     memset(sum, 0, sizeof *sum);
     sum->inputs = inputs->n;
-    xmlInitParser();
     int threads = opt->threads < 1 ? 1 : opt->threads > 256 ? 256 : opt->threads;
     runner r;
     memset(&r, 0, sizeof r);
