@@ -46,6 +46,23 @@ B       := build
 LDSAN   :=
 endif
 
+# The program links the libraries above (not the C library) statically
+# where their archives are installed, as Debian's -dev packages install
+# them, and is not position-independent: no shared objects to map and
+# relocate and no relocations of its own at start, each a page fault of
+# some microseconds in a virtual machine (termtide --version 5.8 -> 2.7 ms
+# here, perf stat over 30 runs; every command starts that much sooner).
+# STATIC=0 links them shared; the sanitizer build always does, and the
+# tests link the library shared either way.
+STATIC  ?= 1
+STATIC_NAMES   := $(filter-out m pthread dl c,$(patsubst -l%,%,$(filter -l%,$(shell pkg-config --static --libs $(PKGS)) -lstemmer)))
+STATIC_MISSING := $(strip $(foreach n,$(sort $(STATIC_NAMES)),$(if $(filter /%,$(shell $(CC) -print-file-name=lib$(n).a)),,$(n))))
+ifeq ($(STATIC)$(SAN)$(STATIC_MISSING),1)
+PROG_LIBS := -no-pie $(shell pkg-config --libs-only-L $(PKGS)) -Wl,-Bstatic $(STATIC_NAMES:%=-l%) -Wl,-Bdynamic -lpthread -lm -ldl
+else
+PROG_LIBS := $(PKG_LIBS)
+endif
+
 LIB_SRC := $(sort $(wildcard src/*.c))
 CLI_SRC := $(sort $(wildcard src/cli/*.c))
 TEST_SRC:= $(sort $(wildcard tests/test_*.c))
@@ -81,7 +98,7 @@ $(B)/libtermtide.a: $(LIB_OBJ)
 	rm -f $@ && ar rcs $@ $^
 
 $(B)/termtide: $(CLI_OBJ) $(B)/libtermtide.a
-	$(CC) $(CFLAGS) $(LDSAN) $(LDFLAGS) $(CLI_OBJ) $(B)/libtermtide.a $(PKG_LIBS) -o $@
+	$(CC) $(CFLAGS) $(LDSAN) $(LDFLAGS) $(CLI_OBJ) $(B)/libtermtide.a $(PROG_LIBS) -o $@
 
 $(B)/tests/%: tests/%.c tests/tt_test.h tests/tt_test_numeric.h tests/tt_test_termtable.h $(B)/libtermtide.a | $(B)/tests
 	$(CC) $(CPPFLAGS_ALL) $(CPPFLAGS) $(WARN) -Wno-missing-prototypes $(CFLAGS) $(LDSAN) $< $(B)/libtermtide.a $(PKG_LIBS) $(TEST_LIBS) -o $@
