@@ -398,7 +398,7 @@ static void *worker_main(void *arg)
     runner *r = arg;
     worker_state ws;
     worker_state_init(&ws, r->opt,
-                      r->opt->total && !only_analyse(r->opt) ? tt_termtable_new() : NULL);
+                      r->opt->total && !only_analyse(r->opt) ? tt_termtable_new_large() : NULL);
     pthread_mutex_lock(&r->lock);
     for (;;) {
         while (!r->stop && r->next < r->inputs->n && r->next >= r->delivered + r->window)

@@ -85,6 +85,22 @@ tt_status tt_buf_grow(tt_buf *b, size_t extra)
     return TT_OK;
 }
 
+#define KEPT_HUGE_MIN ((size_t)256 << 10)
+
+tt_status tti_buf_grow_kept(tt_buf *b, size_t extra)
+{
+    /* a request within the limit is widened to whole huge pages (when that
+     * still is); tt_buf_grow does the rest, checks included */
+    int fits = extra <= b->limit && b->len <= b->limit - extra;
+    size_t need = fits ? b->len + extra + 1 : 0;
+    if (need > b->cap && need >= KEPT_HUGE_MIN && need <= SIZE_MAX - HUGE_PAGE) {
+        size_t whole = (need + HUGE_PAGE - 1) & ~(HUGE_PAGE - 1);
+        if (whole - 1 - b->len <= b->limit - b->len)
+            extra = whole - 1 - b->len;
+    }
+    return tt_buf_grow(b, extra);
+}
+
 tt_status tt_buf_append(tt_buf *b, const void *data, size_t len)
 {
     tt_status st = tt_buf_grow(b, len);

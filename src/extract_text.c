@@ -169,6 +169,9 @@ tt_status tt_extract_text(const char *text, size_t len, long long src_base,
     size_t i = 0;
 
     tt_blocks_reset(out);
+    /* room for the text at once (it only shrinks; blocks add a byte each) */
+    if ((st = tti_buf_grow_kept(buf, len + 64)) != TT_OK)
+        goto fail;
     para_at = buf->len;
     while (i < len) {
         unsigned c = byte_class[s[i]];

@@ -614,7 +614,7 @@ static tt_status read_plain(int fd, const unsigned char *head, size_t nhead, siz
     size_t room;
     /* With the size known, one exact allocation: one byte past the size, so
      * the read that sees end of file needs no growth. */
-    if (hint && (st = tt_buf_grow(out, hint < limit ? hint + 1 : limit)) != TT_OK)
+    if (hint && (st = tti_buf_grow_kept(out, hint < limit ? hint + 1 : limit)) != TT_OK)
         goto fail;
     if ((st = tt_buf_append(out, head, nhead)) != TT_OK)
         goto fail;

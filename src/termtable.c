@@ -40,6 +40,10 @@ typedef struct tti_chunk {
 
 #define ARENA_CHUNK ((size_t)256 * 1024)
 #define INITIAL_CAP 1024
+/* tt_termtable_new_large: 2 MiB of slots, and arena chunks of 2 MiB with
+ * their header (a big block of alloc.c) */
+#define BIG_CAP 65536
+#define BIG_CHUNK (((size_t)2 << 20) - sizeof(chunk))
 
 static uint64_t key0 = 0x736f6d6570736575ULL, key1 = 0x646f72616e646f6dULL;
 
@@ -95,19 +99,24 @@ static uint64_t siphash13(const unsigned char *in, size_t len)
     return v0 ^ v1 ^ v2 ^ v3;
 }
 
-tt_termtable *tt_termtable_new(void)
+static tt_termtable *table_new(size_t cap, int big)
 {
     tt_termtable *t = tt_calloc(1, sizeof *t);
     if (!t)
         return NULL;
-    t->slots = tti_alloc_large(INITIAL_CAP, sizeof *t->slots, &t->slots_mapped);
+    t->slots = tti_alloc_large(cap, sizeof *t->slots, &t->slots_mapped);
     if (!t->slots) {
         tt_free(t);
         return NULL;
     }
-    t->cap = INITIAL_CAP;
+    t->cap = cap;
+    t->big = big;
     return t;
 }
+
+tt_termtable *tt_termtable_new(void) { return table_new(INITIAL_CAP, 0); }
+
+tt_termtable *tt_termtable_new_large(void) { return table_new(BIG_CAP, 1); }
 
 static void free_arena(chunk *c)
 {
@@ -153,7 +162,8 @@ static const char *arena_copy(tt_termtable *t, const char *s, size_t len)
 {
     chunk *c = t->arena;
     if (!c || c->size - c->used < len + 1) {
-        size_t size = len + 1 > ARENA_CHUNK ? len + 1 : ARENA_CHUNK;
+        size_t want = t->big ? BIG_CHUNK : ARENA_CHUNK;
+        size_t size = len + 1 > want ? len + 1 : want;
         c = tt_malloc(sizeof *c + size);
         if (!c)
             return NULL;

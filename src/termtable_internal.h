@@ -33,6 +33,7 @@ struct tt_termtable {
     uint64_t total;
     struct tti_chunk *arena; /* newest first */
     int slots_mapped; /* slots from tti_alloc_large's pages */
+    int big;          /* made by tt_termtable_new_large */
 };
 
 /* Byte equality without a library call, so that a probe loop makes no

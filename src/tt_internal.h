@@ -143,6 +143,14 @@ static inline void tti_prefix_sums(size_t *c, size_t n)
 void *tti_alloc_large(size_t count, size_t size, int *mapped);
 void tti_free_large(void *p, size_t count, size_t size, int mapped);
 
+/* tt_buf_grow for a buffer kept from one document to the next (a
+ * reader's): once it needs 256 KiB or more, its capacity is taken in whole
+ * 2 MiB steps, so it is a big block of alloc.c on huge pages, faulted in
+ * once, where growing it by doubling faults its pages in 4 KiB at a time
+ * (two or three hundred faults per worker for the benchmark's 0.5 MB
+ * documents). */
+tt_status tti_buf_grow_kept(tt_buf *b, size_t extra);
+
 /* pthread_create(tid, NULL, fn, arg), but the thread starts on the k-th
  * allowed CPU after the caller's (k = 0 the next; the caller's own comes
  * last round the mask; parallel.c says why); once running it may go

@@ -1,9 +1,11 @@
 /* Tests of the allocator (src/alloc.c): big blocks (1 MiB and more, mapped
  * on their own) keep their bytes through every kind of growth, come zeroed
- * from tt_calloc, and mix freely with the C library's blocks. */
+ * from tt_calloc, and mix freely with the C library's blocks; a reader's
+ * kept buffer grows in whole huge pages (src/buf.c). */
 #include "tt_test.h"
 
 #include "termtide/alloc.h"
+#include "tt_internal.h"
 
 #define MIB ((size_t)1 << 20)
 
@@ -110,6 +112,41 @@ static void test_many_blocks_mixed(void **state)
     tt_free(NULL);
 }
 
+/* A reader's buffer (tti_buf_grow_kept): below 256 KiB it grows as any
+ * buffer; from there its capacity is whole 2 MiB pages, never past its
+ * limit, and its bytes survive each step. */
+static void test_kept_buffer_whole_pages(void **state)
+{
+    (void)state;
+    tt_buf b;
+    tt_buf_init(&b, 0);
+    assert_int_equal(tti_buf_grow_kept(&b, 1000), TT_OK);
+    assert_true(b.cap >= 1001 && b.cap < 256 * 1024);
+    fill((unsigned char *)b.data, 0, 1000);
+    b.len = 1000;
+    assert_int_equal(tti_buf_grow_kept(&b, 300 * 1024), TT_OK);
+    assert_int_equal(b.cap, 2 * MIB);
+    check((unsigned char *)b.data, 1000);
+#if defined(__linux__) && !defined(__SANITIZE_ADDRESS__)
+    assert_int_equal((uintptr_t)b.data & (2 * MIB - 1), 0); /* a big block */
+#endif
+    fill((unsigned char *)b.data, 1000, 2 * MIB - 1);
+    b.len = 2 * MIB - 1;
+    assert_int_equal(tti_buf_grow_kept(&b, 5), TT_OK);
+    assert_int_equal(b.cap, 4 * MIB);
+    check((unsigned char *)b.data, 2 * MIB - 1);
+    tt_buf_release(&b);
+    /* a limit below the next whole page: exactly up to the limit */
+    tt_buf_init(&b, 3 * MIB);
+    assert_int_equal(tti_buf_grow_kept(&b, MIB), TT_OK);
+    assert_int_equal(b.cap, 2 * MIB);
+    b.len = 2 * MIB - 1;
+    assert_int_equal(tti_buf_grow_kept(&b, 10), TT_OK);
+    assert_int_equal(b.cap, 3 * MIB + 1);
+    assert_int_equal(tti_buf_grow_kept(&b, MIB + 2), TT_ELIMIT);
+    tt_buf_release(&b);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -117,6 +154,7 @@ int main(void)
         cmocka_unit_test(test_small_block_grown_big),
         cmocka_unit_test(test_big_calloc_is_zero),
         cmocka_unit_test(test_many_blocks_mixed),
+        cmocka_unit_test(test_kept_buffer_whole_pages),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -205,6 +205,65 @@ static void test_growth_and_merge(void **state)
     tt_termtable_free(b);
 }
 
+/* A table made for a large vocabulary (tt_termtable_new_large: 2 MiB of
+ * slots and 2 MiB chunks of terms from the start) counts, grows, merges,
+ * resets and sorts exactly as an ordinary one: the same 150,000 terms
+ * (past two doublings of its slots and across many chunks, with a term
+ * longer than a chunk among them) give the same entries. */
+static void test_large_table_same_as_small(void **state)
+{
+    (void)state;
+    tt_termtable *big = tt_termtable_new_large(), *small = tt_termtable_new();
+    assert_non_null(big);
+    assert_non_null(small);
+    size_t long_len = (size_t)3 << 20;
+    char *longterm = malloc(long_len);
+    assert_non_null(longterm);
+    memset(longterm, 'q', long_len);
+    char w[40];
+    for (int round = 0; round < 2; round++) {
+        for (int i = 0; i < 150000; i++) {
+            int n = snprintf(w, sizeof w, "term-%d-%x", i, (unsigned)i * 2654435761u);
+            assert_int_equal(tt_termtable_add(big, w, (size_t)n, (uint64_t)(i % 5 + 1)), TT_OK);
+            assert_int_equal(tt_termtable_add(small, w, (size_t)n, (uint64_t)(i % 5 + 1)), TT_OK);
+            if (i == 70000) {
+                assert_int_equal(tt_termtable_add(big, longterm, long_len, 9), TT_OK);
+                assert_int_equal(tt_termtable_add(small, longterm, long_len, 9), TT_OK);
+            }
+        }
+        assert_int_equal(tt_termtable_distinct(big), 150001);
+        assert_int_equal(tt_termtable_get(big, longterm, long_len), 9);
+        tt_term_entry *eb, *es;
+        size_t nb, ns;
+        assert_int_equal(tt_termtable_sorted(big, &eb, &nb), TT_OK);
+        assert_int_equal(tt_termtable_sorted(small, &es, &ns), TT_OK);
+        assert_int_equal(nb, ns);
+        for (size_t i = 0; i < nb; i++) {
+            assert_int_equal(eb[i].count, es[i].count);
+            assert_int_equal(eb[i].len, es[i].len);
+            assert_memory_equal(eb[i].term, es[i].term, eb[i].len);
+        }
+        tt_free(eb);
+        tt_free(es);
+        if (round == 0) {
+            /* emptied, it is used again from its kept memory */
+            tt_termtable_reset(big);
+            tt_termtable_reset(small);
+            assert_int_equal(tt_termtable_distinct(big), 0);
+            assert_int_equal(tt_termtable_get(big, "term-1-9e3779b1", 15), 0);
+        }
+    }
+    /* merged into an ordinary table and the other way round */
+    assert_int_equal(tt_termtable_merge(small, big), TT_OK);
+    assert_int_equal(tt_termtable_merge(big, small), TT_OK);
+    int n = snprintf(w, sizeof w, "term-%d-%x", 4, 4u * 2654435761u);
+    assert_int_equal(tt_termtable_get(small, w, (size_t)n), 10);
+    assert_int_equal(tt_termtable_get(big, w, (size_t)n), 15);
+    free(longterm);
+    tt_termtable_free(big);
+    tt_termtable_free(small);
+}
+
 /* Terms that differ only after 8-byte boundaries, embedded high bytes and
  * a long term crossing the arena chunk size must stay distinct. */
 static void test_awkward_keys(void **state)
@@ -238,7 +297,7 @@ static void test_out_of_memory(void **state)
     for (fail_at = 1; fail_at < 80; fail_at++) {
         calls = 0;
         tt_set_allocator(&a);
-        tt_termtable *t = tt_termtable_new();
+        tt_termtable *t = fail_at % 2 ? tt_termtable_new() : tt_termtable_new_large();
         tt_status st = t ? TT_OK : TT_ENOMEM;
         char w[16];
         for (int i = 0; i < 3000 && st == TT_OK; i++) {
@@ -281,6 +340,7 @@ int main(void)
         cmocka_unit_test(test_sorted_against_qsort),
         cmocka_unit_test(test_sorted_union_against_reference),
         cmocka_unit_test(test_growth_and_merge),
+        cmocka_unit_test(test_large_table_same_as_small),
         cmocka_unit_test(test_awkward_keys),
         cmocka_unit_test(test_out_of_memory),
     };

@@ -361,7 +361,7 @@ int tt_cmd_count(int argc, char **argv)
     } else if (!cli_expand_inputs(&inputs, argc - optind, argv + optind)) {
         goto out;
     }
-    if (c.total && !(c.all = tt_termtable_new())) {
+    if (c.total && !(c.all = tt_termtable_new_large())) {
         cli_error("out of memory");
         goto out;
     }
