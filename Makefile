@@ -50,7 +50,7 @@ endif
 # where their archives are installed, as Debian's -dev packages install
 # them, and is not position-independent: no shared objects to map and
 # relocate and no relocations of its own at start, each a page fault of
-# some microseconds in a virtual machine (termtide --version 5.8 -> 2.7 ms
+# some microseconds in a virtual machine (termtide --version 6.0 -> 3.1 ms
 # here, perf stat over 30 runs; every command starts that much sooner).
 # STATIC=0 links them shared; the sanitizer build always does, and the
 # tests link the library shared either way.
